@@ -1,0 +1,25 @@
+import type { Metadata, Viewport } from "next";
+import { SiteFooter } from "@/components/shell/site-footer";
+import { SiteHeader } from "@/components/shell/site-header";
+import { jetbrainsMono, publicSans } from "./fonts";
+import "./globals.css";
+
+export const metadata: Metadata = {
+  title: { default: "Ampwright", template: "%s · Ampwright" },
+  description:
+    "Prove where a charging or starting fault is before buying parts, size cables and fuses for added loads, and teach the method with worked circuits.",
+};
+
+export const viewport: Viewport = { width: "device-width", initialScale: 1, themeColor: "#1d2125" };
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en" className={`${publicSans.variable} ${jetbrainsMono.variable}`}>
+      <body className="flex min-h-dvh flex-col antialiased">
+        <SiteHeader />
+        <main className="flex-1">{children}</main>
+        <SiteFooter />
+      </body>
+    </html>
+  );
+}

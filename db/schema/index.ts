@@ -1,0 +1,3 @@
+export * from "./meta";
+export * from "./organizations";
+export * from "./vehicles";

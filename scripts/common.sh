@@ -1,0 +1,45 @@
+# Shared by start.sh and test.sh: install what is missing, the same way on a fresh machine and on a used one.
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+export NEXT_TELEMETRY_DISABLED=1
+export VITE_CONFIG_NATIVE_IGNORE_WARNING=true
+
+say() { echo "[ampwright] $*" >&2; }
+
+apt_install() {
+  if [ "$(id -u)" -ne 0 ]; then
+    say "missing Debian packages: $*; install them with: sudo apt-get install -y $*"; return 1
+  fi
+  export DEBIAN_FRONTEND=noninteractive
+  if [ -z "${AMP_APT_UPDATED:-}" ]; then apt-get update -qq >/dev/null; AMP_APT_UPDATED=1; fi
+  apt-get install -y -qq "$@" >/dev/null
+}
+
+ensure_node_modules() {
+  local stamp="$ROOT/node_modules/.package-lock.json"
+  if [ ! -f "$stamp" ] || [ "$ROOT/package-lock.json" -nt "$stamp" ]; then
+    say "installing npm dependencies (npm ci)"
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+# Waits until a URL answers 200, or the process it belongs to dies.
+wait_for_http() {
+  local url="$1" pid="$2" tries="${3:-120}"
+  for _ in $(seq "$tries"); do
+    if curl -fsS -o /dev/null "$url" 2>/dev/null; then return 0; fi
+    kill -0 "$pid" 2>/dev/null || return 1
+    sleep 0.5
+  done
+  return 1
+}
+
+port_busy() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# Stops a process group started with setsid, politely first.
+stop_group() {
+  local pid="$1"
+  [ -n "$pid" ] || return 0
+  kill -TERM -- "-$pid" 2>/dev/null || return 0
+  for _ in $(seq 50); do kill -0 "$pid" 2>/dev/null || return 0; sleep 0.1; done
+  kill -KILL -- "-$pid" 2>/dev/null || true
+}

@@ -1,0 +1,58 @@
+#!/usr/bin/env bash
+# npm start: install what is missing, start PostgreSQL, migrate, load the demo, build, serve on 127.0.0.1.
+set -euo pipefail
+source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
+cd "$ROOT"
+
+PORT="${PORT:-3000}"
+export PORT
+export AMP_PG_NAME=pg AMP_PG_PORT="${AMP_PG_PORT:-54329}" AMP_PG_DB=ampwright
+export DATABASE_URL="${DATABASE_URL:-postgres://ampwright@127.0.0.1:$AMP_PG_PORT/ampwright}"
+export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
+export NODE_ENV=production
+
+if port_busy "$PORT"; then
+  say "port $PORT is already in use (another npm start?). Stop it, or run: PORT=3001 npm start"; exit 1
+fi
+
+command -v curl >/dev/null || apt_install curl
+ensure_node_modules
+
+SERVER_PID=""
+cleanup() {
+  trap - INT TERM EXIT
+  say "stopping"
+  stop_group "$SERVER_PID"
+  bash scripts/db.sh stop || true
+  say "stopped"
+}
+trap cleanup INT TERM EXIT
+
+bash scripts/db.sh start
+say "applying migrations"
+node_modules/.bin/tsx db/migrate.ts
+node_modules/.bin/tsx db/seed.ts
+say "building (about a minute on two cores)"
+NEXT_DIST_DIR=.next node_modules/.bin/next build >"$ROOT/.data/build.log" 2>&1 ||
+  { tail -n 40 "$ROOT/.data/build.log" >&2; say "the build failed; the full log is .data/build.log"; exit 1; }
+
+setsid node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" &
+SERVER_PID=$!
+if ! wait_for_http "http://127.0.0.1:$PORT/api/health" "$SERVER_PID"; then
+  say "the server did not come up on port $PORT"; exit 1
+fi
+
+cat >&2 <<MSG
+
+  Ampwright is running at http://127.0.0.1:$PORT
+
+  First things to try:
+    - Open the start page and read what each area is for.
+    - Check http://127.0.0.1:$PORT/api/health: it says whether the database is up.
+    - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Eastfield Technical Institute)
+      with their vehicles.
+
+  Press Ctrl-C to stop the server and the database it started.
+
+MSG
+wait "$SERVER_PID" || true

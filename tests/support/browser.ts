@@ -1,0 +1,43 @@
+import fs from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type Page } from "playwright-core";
+
+export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
+export const artifactsDir = path.resolve(process.env.E2E_ARTIFACTS ?? "test-artifacts");
+
+/** Debian's Chromium, headless, with the flags that keep it off the network. */
+export async function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    headless: true,
+    args: [
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--no-first-run",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--disable-sync",
+    ],
+  });
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  fs.mkdirSync(artifactsDir, { recursive: true });
+  const file = path.join(artifactsDir, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
+
+/** Collects console errors and failed requests so a test can require a clean page. */
+export function watchPage(page: Page): { problems: string[] } {
+  const problems: string[] = [];
+  page.on("console", (msg) => {
+    if (msg.type() === "error") problems.push(`console: ${msg.text()}`);
+  });
+  page.on("pageerror", (err) => problems.push(`page error: ${err.message}`));
+  page.on("response", (res) => {
+    if (res.status() >= 400 && !res.url().includes("/does-not-exist")) problems.push(`${res.status()} ${res.url()}`);
+  });
+  return { problems };
+}
