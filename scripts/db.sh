@@ -37,7 +37,7 @@ ensure_binaries() {
 
 # As root, the server runs as the postgres system user (initdb refuses root); otherwise as the caller.
 as_owner() {
-  if [ "$(id -u)" -eq 0 ]; then runuser -u postgres -- "$@"; else "$@"; fi
+  if [ "$(id -u)" -eq 0 ]; then (cd / && runuser -u postgres -- "$@"); else "$@"; fi
 }
 
 # The data folder: under the clone when the owner can reach it, else keyed to the clone under /var/lib.
@@ -45,7 +45,7 @@ data_dir() {
   local local_dir="$ROOT/.data/$NAME"
   if [ "$(id -u)" -ne 0 ]; then echo "$local_dir"; return; fi
   mkdir -p "$ROOT/.data"
-  if runuser -u postgres -- test -x "$ROOT/.data" 2>/dev/null && runuser -u postgres -- test -r "$ROOT/.data" 2>/dev/null; then
+  if (cd / && runuser -u postgres -- test -x "$ROOT/.data" && runuser -u postgres -- test -r "$ROOT/.data") 2>/dev/null; then
     echo "$local_dir"; return
   fi
   local key
@@ -80,6 +80,11 @@ start() {
   if is_running; then
     log "already running on 127.0.0.1:$PORT ($DATA)"
   else
+    if (exec 3<>"/dev/tcp/127.0.0.1/$PORT") 2>/dev/null; then
+      log "port $PORT on 127.0.0.1 is taken by another program (another Ampwright clone's database?)."
+      log "Stop it, or choose another port: AMP_PG_PORT=<port> (and DATABASE_URL to match)."
+      exit 1
+    fi
     if [ -f "$DATA/postmaster.pid" ]; then
       log "removing a stale postmaster.pid left by a crash"
       rm -f "$DATA/postmaster.pid"
