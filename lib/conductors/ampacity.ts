@@ -1,0 +1,101 @@
+import { findSize, type ConductorSize } from "./sizes";
+
+/**
+ * 33 CFR 183.425 Table 5: allowable amperes of conductors (a single conductor in free air), by AWG size and
+ * insulation temperature rating, at 30 degrees C ambient. US federal regulation for boats; the same figures as
+ * the marine standard ABYC E-11.
+ */
+export const TABLE5_RATINGS_C = [60, 75, 80, 90, 105, 125, 200] as const;
+export const TABLE5_BASIS_C = 30;
+export const TABLE5: Record<string, readonly number[]> = {
+  "18 AWG": [10, 10, 15, 20, 20, 25, 25],
+  "16 AWG": [15, 15, 20, 25, 25, 30, 35],
+  "14 AWG": [20, 20, 25, 30, 35, 40, 45],
+  "12 AWG": [25, 25, 35, 40, 45, 50, 55],
+  "10 AWG": [40, 40, 50, 55, 60, 70, 70],
+  "8 AWG": [55, 65, 70, 70, 80, 90, 100],
+  "6 AWG": [80, 95, 100, 100, 120, 125, 135],
+  "4 AWG": [105, 125, 130, 135, 160, 170, 180],
+  "2 AWG": [140, 170, 175, 180, 210, 225, 240],
+  "1 AWG": [165, 195, 210, 210, 245, 265, 280],
+  "1/0 AWG": [195, 230, 245, 245, 285, 305, 325],
+  "2/0 AWG": [225, 265, 285, 285, 330, 355, 370],
+  "3/0 AWG": [260, 310, 330, 330, 385, 410, 430],
+  "4/0 AWG": [300, 360, 385, 385, 445, 475, 510],
+};
+
+export type TableAmpacity = {
+  /** Allowable amperes at the table's 30 degrees C basis. */
+  amps: number;
+  /** The insulation column used (the highest listed rating not above the cable's). */
+  columnC: number;
+  /** True when the size is not a row of the table and the value was interpolated. */
+  derived: boolean;
+  /** True when the insulation rating fell between columns and the lower column was taken. */
+  lowerColumn: boolean;
+};
+
+const ROWS = Object.keys(TABLE5).map((label) => findSize(label) as ConductorSize);
+
+/**
+ * The table's ampacity for any size and rating. A rating between columns takes the lower column; a size the
+ * table does not list is interpolated (or, outside the table, extrapolated from the two nearest rows)
+ * log-log in circular mils, and marked derived. Returns undefined below the table's lowest column (60 C).
+ */
+export function tableAmpacity(size: ConductorSize, insulationRatingC: number): TableAmpacity | undefined {
+  let col = -1;
+  for (let i = 0; i < TABLE5_RATINGS_C.length; i++) if (TABLE5_RATINGS_C[i] <= insulationRatingC) col = i;
+  if (col < 0) return undefined;
+  const columnC = TABLE5_RATINGS_C[col];
+  const lowerColumn = columnC !== insulationRatingC;
+  const row = TABLE5[size.label];
+  if (row) return { amps: row[col], columnC, derived: false, lowerColumn };
+  // Neighbouring rows by area.
+  let hi = ROWS.findIndex((r) => r.cmil > size.cmil);
+  if (hi <= 0) hi = hi === 0 ? 1 : ROWS.length - 1;
+  const a = ROWS[hi - 1];
+  const b = ROWS[hi];
+  const ia = TABLE5[a.label][col];
+  const ib = TABLE5[b.label][col];
+  const t = (Math.log(size.cmil) - Math.log(a.cmil)) / (Math.log(b.cmil) - Math.log(a.cmil));
+  const amps = Math.exp(Math.log(ia) + t * (Math.log(ib) - Math.log(ia)));
+  return { amps: Math.round(amps * 10) / 10, columnC, derived: true, lowerColumn };
+}
+
+/** Default ambient of a routing zone, used only when no ambient is given. */
+export const ZONE_AMBIENT_C = { cabin: 30, underbody: 40, engine: 50 } as const;
+export type Zone = keyof typeof ZONE_AMBIENT_C;
+
+/**
+ * Ambient correction, the square-root rule of NFPA 70 310.15(B)(1): I' = I sqrt((Tc - Ta) / (Tc - 30)).
+ * Above 1 below 30 degrees C, as the code's table prints; 0 at or above the insulation rating.
+ */
+export function ambientFactor(insulationRatingC: number, ambientC: number): number {
+  if (ambientC >= insulationRatingC) return 0;
+  return Math.sqrt((insulationRatingC - ambientC) / (insulationRatingC - TABLE5_BASIS_C));
+}
+
+/** Marine practice bundling factors (USCG electrical compliance guideline): 3: 0.70, 4-6: 0.60, 7-24: 0.50, 25+: 0.40. */
+export function bundleFactor(conductorsInBundle: number): number {
+  if (conductorsInBundle >= 25) return 0.4;
+  if (conductorsInBundle >= 7) return 0.5;
+  if (conductorsInBundle >= 4) return 0.6;
+  if (conductorsInBundle >= 3) return 0.7;
+  return 1;
+}
+
+export type DeratedAmpacity = TableAmpacity & { ambientFactor: number; bundleFactor: number; ampacityA: number };
+
+/** Table ampacity corrected for ambient and bundling. */
+export function deratedAmpacity(
+  size: ConductorSize,
+  insulationRatingC: number,
+  ambientC: number,
+  bundleSize: number,
+): DeratedAmpacity | undefined {
+  const base = tableAmpacity(size, insulationRatingC);
+  if (!base) return undefined;
+  const af = ambientFactor(base.columnC, ambientC);
+  const bf = bundleFactor(bundleSize);
+  return { ...base, ambientFactor: af, bundleFactor: bf, ampacityA: base.amps * af * bf };
+}

@@ -1,0 +1,7 @@
+export * from "./ampacity";
+export * from "./insulation";
+export * from "./materials";
+export * from "./protection";
+export * from "./resistance";
+export * from "./sizes";
+export * from "./sizing";
