@@ -1,0 +1,150 @@
+import { z } from "zod";
+import { SIZE_LABELS } from "@/lib/conductors/sizes";
+import { MATERIAL_IDS } from "@/lib/conductors/materials";
+
+/** The circuit document, version 1: one JSON document per circuit, SI units inside. */
+export const CIRCUIT_SCHEMA_V1 = "ampwright.circuit/1";
+
+const id = z
+  .string()
+  .min(1, "an id cannot be empty")
+  .max(64, "ids are at most 64 characters")
+  .regex(/^[A-Za-z0-9_-]+$/, "ids use letters, digits, _ and - only (no dots or spaces)");
+const volts = (what: string) => z.number({ error: `${what} must be a number of volts` }).finite();
+const nonNegOhm = (what: string) => z.number({ error: `${what} must be a number of ohms` }).finite().min(0, `${what} cannot be negative`);
+const amps = (what: string) => z.number({ error: `${what} must be a number of amperes` }).finite();
+
+const base = {
+  id,
+  label: z.string().max(200).optional(),
+  position: z.strictObject({ x: z.number().finite(), y: z.number().finite() }).optional(),
+};
+
+export const batterySchema = z.strictObject({
+  ...base,
+  kind: z.literal("battery"),
+  openCircuitVoltage: volts("openCircuitVoltage").min(0).max(1000),
+  internalResistance: nonNegOhm("internalResistance"),
+  capacityAh: z.number().finite().positive().optional(),
+  cca: z.number().finite().positive().optional(),
+});
+export const alternatorSchema = z.strictObject({
+  ...base,
+  kind: z.literal("alternator"),
+  regulatedVoltage: volts("regulatedVoltage").positive().max(1000),
+  ratedCurrent: amps("ratedCurrent").min(0),
+  enabled: z.boolean().optional(),
+});
+export const starterSchema = z
+  .strictObject({
+    ...base,
+    kind: z.literal("starter"),
+    current: amps("current").min(0).optional(),
+    resistance: z.number().finite().positive("resistance must be more than 0 ohm").optional(),
+    enabled: z.boolean().optional(),
+  })
+  .refine((s) => (s.current === undefined) !== (s.resistance === undefined), {
+    message: "a starter takes either current (A) or resistance (ohm), not both and not neither",
+    path: ["current"],
+  });
+export const loadSchema = z
+  .strictObject({
+    ...base,
+    kind: z.literal("load"),
+    mode: z.enum(["current", "power", "resistance"]),
+    value: z.number({ error: "value must be a number" }).finite().min(0, "value cannot be negative"),
+    enabled: z.boolean().optional(),
+  })
+  .refine((l) => l.mode !== "resistance" || l.value > 0, { message: "a resistance load needs a value above 0 ohm", path: ["value"] });
+export const fuseSchema = z.strictObject({ ...base, kind: z.literal("fuse"), rating: amps("rating").positive(), resistance: nonNegOhm("resistance") });
+export const switchSchema = z.strictObject({
+  ...base,
+  kind: z.literal("switch"),
+  closed: z.boolean().optional(),
+  contactResistance: nonNegOhm("contactResistance"),
+});
+export const jointSchema = z.strictObject({ ...base, kind: z.literal("joint"), resistance: nonNegOhm("resistance") });
+export const junctionSchema = z.strictObject({ ...base, kind: z.literal("junction") });
+export const groundSchema = z.strictObject({ ...base, kind: z.literal("ground"), reference: z.boolean().optional() });
+
+export const componentSchema = z.discriminatedUnion("kind", [
+  batterySchema,
+  alternatorSchema,
+  starterSchema,
+  loadSchema,
+  fuseSchema,
+  switchSchema,
+  jointSchema,
+  junctionSchema,
+  groundSchema,
+]);
+
+export const COMPONENT_KINDS = ["battery", "alternator", "starter", "load", "fuse", "switch", "joint", "junction", "ground"] as const;
+export type ComponentKind = (typeof COMPONENT_KINDS)[number];
+
+/** Terminals of each kind, first terminal first. */
+export const TERMINALS: Record<ComponentKind, readonly string[]> = {
+  battery: ["pos", "neg"],
+  alternator: ["out", "case"],
+  starter: ["in", "case"],
+  load: ["pos", "neg"],
+  fuse: ["a", "b"],
+  switch: ["a", "b"],
+  joint: ["a", "b"],
+  junction: ["t"],
+  ground: ["t"],
+};
+
+const terminalRef = z.string().regex(/^[A-Za-z0-9_-]+\.[a-z]+$/, 'a terminal is written "<component id>.<terminal>", like "B1.pos"');
+
+export const wireSchema = z
+  .strictObject({
+    id,
+    from: terminalRef,
+    to: terminalRef,
+    label: z.string().max(200).optional(),
+    size: z.enum(SIZE_LABELS as [string, ...string[]], { error: 'size must be one of "20 AWG" ... "4/0 AWG" or "0.5 mm2" ... "120 mm2"' }).optional(),
+    material: z.enum(MATERIAL_IDS as [string, ...string[]]).optional(),
+    lengthM: z.number().finite().min(0, "lengthM cannot be negative").max(1000).optional(),
+    resistanceOhm: nonNegOhm("resistanceOhm").optional(),
+    insulationRatingC: z.number().finite().min(60).max(250).optional(),
+    bundleSize: z.number().int().min(1).max(200).optional(),
+    zone: z.enum(["cabin", "engine", "underbody"]).optional(),
+  })
+  .refine((w) => w.resistanceOhm !== undefined || (w.size !== undefined && w.lengthM !== undefined), {
+    message: "a wire needs size and lengthM (or an explicit resistanceOhm for a strap, frame rail or engine block)",
+    path: ["size"],
+  });
+
+export const stateSchema = z.strictObject({
+  id,
+  name: z.string().min(1).max(120),
+  set: z.record(id, z.record(z.string(), z.union([z.number().finite(), z.boolean(), z.string()]))).default({}),
+});
+
+export const circuitSchemaV1 = z.strictObject({
+  schema: z.literal(CIRCUIT_SCHEMA_V1),
+  name: z.string().min(1, "give the circuit a name").max(200),
+  systemVoltage: z.number().finite().positive().max(1000),
+  ambientC: z.number().finite().min(-60).max(150).optional(),
+  conductorTemp: z.union([z.enum(["ambient", "rated"]), z.number().finite().min(-60).max(250)]).optional(),
+  components: z.array(componentSchema),
+  wires: z.array(wireSchema),
+  states: z.array(stateSchema).optional(),
+});
+
+export type CircuitDocument = z.infer<typeof circuitSchemaV1>;
+export type Component = z.infer<typeof componentSchema>;
+export type Wire = z.infer<typeof wireSchema>;
+export type OperatingState = z.infer<typeof stateSchema>;
+
+/** Defaults the document leaves out. */
+export const CIRCUIT_DEFAULTS = {
+  ambientC: 25,
+  conductorTemp: "ambient" as const,
+  insulationRatingC: 105,
+  bundleSize: 1,
+  material: "copper" as const,
+  enabled: true,
+  closed: true,
+};

@@ -1,0 +1,2 @@
+export { solveCircuit, type AlternatorMode } from "./solve";
+export * from "./types";
