@@ -24,7 +24,6 @@ export const EL = {
 
 export type Netlist = {
   terminalNames: string[];
-  terminalIndex: Map<string, number>;
   /** Which component or wire (by position in ownerIds) each element belongs to. */
   ownerIds: string[];
   count: number;
@@ -37,6 +36,8 @@ export type Netlist = {
   components: Component[];
   /** Element index of each component (or -1) and of each wire. */
   componentElement: Int32Array;
+  /** Index of each component's first terminal (its terminals are consecutive). */
+  componentTerminal: Int32Array;
   wireIds: string[];
   wireElement: Int32Array;
   wireResistance: Float64Array;
@@ -86,7 +87,7 @@ export function applyState(doc: CircuitDocument, stateId: string): { components:
 export function buildNetlist(doc: CircuitDocument, components: Component[]): Netlist {
   const issues: SolveIssue[] = [];
   const terminalNames: string[] = [];
-  const terminalIndex = new Map<string, number>();
+  const componentIndex = new Map<string, number>();
   const seen = new Map<string, string>();
   const unique: Component[] = [];
   for (const c of components) {
@@ -95,12 +96,9 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
       continue;
     }
     seen.set(c.id, "component");
+    componentIndex.set(c.id, unique.length);
     unique.push(c);
-    for (const t of TERMINALS[c.kind]) {
-      const name = `${c.id}.${t}`;
-      terminalIndex.set(name, terminalNames.length);
-      terminalNames.push(name);
-    }
+    for (const t of TERMINALS[c.kind]) terminalNames.push(`${c.id}.${t}`);
   }
 
   const cap = unique.length + doc.wires.length;
@@ -124,12 +122,16 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   };
 
   const componentElement = new Int32Array(unique.length).fill(-1);
+  const componentTerminal = new Int32Array(unique.length);
   let reference = -1;
   let firstBatteryNeg = -1;
   const references: string[] = [];
+  let nextTerminal = 0;
   unique.forEach((c, ci) => {
-    const t0 = terminalIndex.get(`${c.id}.${TERMINALS[c.kind][0]}`) as number;
-    const t1 = TERMINALS[c.kind].length > 1 ? (terminalIndex.get(`${c.id}.${TERMINALS[c.kind][1]}`) as number) : -1;
+    const t0 = nextTerminal;
+    const t1 = TERMINALS[c.kind].length > 1 ? t0 + 1 : -1;
+    nextTerminal += TERMINALS[c.kind].length;
+    componentTerminal[ci] = t0;
     const resistive = (r: number) => (r > 0 ? add(EL.resistor, t0, t1, 1 / r, 0, c.id) : add(EL.link, t0, t1, 0, 0, c.id));
     switch (c.kind) {
       case "battery":
@@ -183,6 +185,14 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   }
   if (reference < 0) reference = firstBatteryNeg >= 0 ? firstBatteryNeg : terminalNames.length > 0 ? 0 : -1;
 
+  // "B1.pos" -> the terminal's index, through the component's first terminal (terminals are consecutive).
+  const terminalOf = (ref: string): number | undefined => {
+    const dot = ref.lastIndexOf(".");
+    const ci = componentIndex.get(ref.slice(0, dot));
+    if (ci === undefined) return undefined;
+    const k = TERMINALS[unique[ci].kind].indexOf(ref.slice(dot + 1));
+    return k < 0 ? undefined : componentTerminal[ci] + k;
+  };
   const ambientC = doc.ambientC ?? CIRCUIT_DEFAULTS.ambientC;
   const tempChoice = doc.conductorTemp ?? CIRCUIT_DEFAULTS.conductorTemp;
   const wired = new Uint8Array(terminalNames.length);
@@ -196,8 +206,8 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
       return;
     }
     seen.set(w.id, "wire");
-    const ia = terminalIndex.get(w.from);
-    const ib = terminalIndex.get(w.to);
+    const ia = terminalOf(w.from);
+    const ib = terminalOf(w.to);
     const missing = [ia === undefined ? w.from : null, ib === undefined ? w.to : null].filter(Boolean) as string[];
     if (missing.length) {
       issues.push({
@@ -225,7 +235,6 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
 
   return {
     terminalNames,
-    terminalIndex,
     ownerIds,
     count,
     type,
@@ -236,6 +245,7 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
     owner,
     components: unique,
     componentElement,
+    componentTerminal,
     wireIds,
     wireElement,
     wireResistance,

@@ -3,6 +3,10 @@ import { applyState, buildNetlist, EL, type Netlist } from "./netlist";
 import { buildPattern, minimumDegree, numeric, position, solveFactored, symbolic } from "./sparse";
 import { defaultOptions, type ComponentResult, type SolveIssue, type SolveOptions, type SolveResult, type WireResult } from "./types";
 
+const { resistor: RES, link: LINK, vsource: VSRC, isource: ISRC, norton: NORTON, power: POWER, alternator: ALT } = EL;
+const REGULATING = 1;
+const LIMITED = 2;
+
 /** Alternator operating modes chosen by the active set. */
 export type AlternatorMode = "regulating" | "current-limit" | "blocked";
 
@@ -14,13 +18,13 @@ type Network = {
   iterations: number;
   residual: number;
   issues: SolveIssue[];
-  floating: Uint8Array;
 };
 
 /**
- * Solves one operating state of a circuit document: modified nodal analysis with ideal sources and zero-ohm links
- * folded into supernodes, Newton iteration for constant-power loads, and an active-set iteration for alternator
- * modes. Problems come back as issues in the result, never as exceptions.
+ * Solves one operating state of a circuit document: modified nodal analysis with ideal batteries and zero-ohm links
+ * folded into supernodes, regulating alternators as constraints bordering the nodal matrix, Newton iteration for
+ * constant-power loads and an active-set iteration for alternator modes. The ordering and symbolic factorisation are
+ * done once; every Newton step and mode switch reuses them. Problems come back as issues, never as exceptions.
  */
 export function solveCircuit(doc: CircuitDocument, opts: Partial<SolveOptions> = {}): SolveResult {
   const options = { ...defaultOptions, ...opts };
@@ -45,25 +49,31 @@ export function solveCircuit(doc: CircuitDocument, opts: Partial<SolveOptions> =
     return empty();
   }
   reportUnconnected(net, issues);
+  const st = prepare(net, issues);
 
   // Active set over alternator modes: start regulating, solve, switch the ones whose mode is violated.
-  const alternators: number[] = [];
-  for (let e = 0; e < net.count; e++) if (net.type[e] === EL.alternator) alternators.push(e);
-  const modes: AlternatorMode[] = alternators.map(() => "regulating");
+  const alternators = st.alternators;
+  const modes: AlternatorMode[] = alternators.map((e) => (st.altUsable[e] ? "regulating" : "blocked"));
   const visited = new Set<string>();
   let passes = 0;
   let iterations = 0;
   let result: Network | undefined;
   let cycled = false;
+  // Passes whose modes may still change stop Newton early (loose); the last pass is always a tight one.
+  const loose = 1e-3 / Math.max(1, doc.systemVoltage);
+  let tight = !st.hasPower || alternators.length === 0;
   for (;;) {
     passes++;
     visited.add(modes.join(","));
-    result = solveNetwork(net, alternators, modes, doc.systemVoltage, options);
+    // Each pass starts from the previous pass's voltages, so Newton has little left to do.
+    const tolerance = tight ? options.voltageTolerance : Math.max(loose, options.voltageTolerance);
+    result = iterate(net, st, modes, doc.systemVoltage, { ...options, voltageTolerance: tolerance }, result?.ok ? result.v : undefined, tight);
     iterations += result.iterations;
     if (!result.ok) break;
     let changed = false;
     alternators.forEach((e, k) => {
-      const delivered = -result!.current[e] * (modes[k] === "regulating" ? 1 : 0);
+      if (!st.altUsable[e]) return;
+      const delivered = -result!.current[e];
       const volts = result!.v[net.a[e]] - result!.v[net.b[e]];
       const rated = net.g[e];
       const vreg = net.value[e];
@@ -79,12 +89,13 @@ export function solveCircuit(doc: CircuitDocument, opts: Partial<SolveOptions> =
         changed = true;
       }
     });
-    if (!changed) break;
-    if (visited.has(modes.join(","))) {
-      cycled = true;
-      break;
+    if (!changed) {
+      if (tight) break;
+      tight = true; // settle the same modes to full accuracy, then check them once more
+      visited.delete(modes.join(","));
+      continue;
     }
-    if (passes > 2 * alternators.length + 10) {
+    if (visited.has(modes.join(",")) || passes > 2 * alternators.length + 12) {
       cycled = true;
       break;
     }
@@ -102,10 +113,12 @@ export function solveCircuit(doc: CircuitDocument, opts: Partial<SolveOptions> =
 }
 
 function reportUnconnected(net: Netlist, issues: SolveIssue[]): void {
-  for (const c of net.components) {
-    const names = TERMINALS[c.kind].map((t) => `${c.id}.${t}`);
-    const touched = names.filter((n) => net.wired[net.terminalIndex.get(n) as number]);
-    if (touched.length === 0) {
+  for (let ci = 0; ci < net.components.length; ci++) {
+    const c = net.components[ci];
+    const t0 = net.componentTerminal[ci];
+    let touched = 0;
+    for (let k = 0; k < TERMINALS[c.kind].length; k++) touched += net.wired[t0 + k];
+    if (touched === 0) {
       issues.push({ severity: "warning", code: "unconnected", message: `${c.id} is not connected to anything. Draw a wire to it, or remove it.`, ids: [c.id] });
     }
   }
@@ -151,27 +164,39 @@ class OffsetUnion {
   }
 }
 
-function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode[], systemVoltage: number, options: SolveOptions): Network {
+/** What does not change between Newton steps and alternator modes: supernodes, islands, the matrix pattern. */
+type Structure = {
+  T: number;
+  rep: Int32Array;
+  off: Float64Array;
+  tree: number[];
+  fixed: Int8Array;
+  fixedValue: Float64Array;
+  index: Int32Array;
+  n: number;
+  pattern: ReturnType<typeof buildPattern>;
+  sym: ReturnType<typeof symbolic>;
+  pos: Int32Array;
+  deadSource: Uint8Array;
+  alternators: number[];
+  /** Alternators that can regulate (their terminals are distinct nodes of one island). */
+  altUsable: Uint8Array;
+  hasPower: boolean;
+};
+
+function prepare(net: Netlist, issues: SolveIssue[]): Structure {
   const T = net.terminalNames.length;
-  const issues: SolveIssue[] = [];
-  const modeOf = new Map<number, AlternatorMode>();
-  alternators.forEach((e, k) => modeOf.set(e, modes[k]));
   const uf = new OffsetUnion(T);
   const tree: number[] = [];
-  const sourceLoop = new Set<string>();
+  const sourceLoop = new Set<number>();
   const name = (e: number) => net.ownerIds[net.owner[e]];
+  const types = net.type;
 
-  // 1. Ideal links and ideal sources fold terminals into supernodes.
-  const ideal = (e: number) => {
-    const t = net.type[e];
-    if (t === EL.link) return 0;
-    if (t === EL.vsource) return net.value[e];
-    if (t === EL.alternator && modeOf.get(e) === "regulating") return net.value[e];
-    return undefined;
-  };
+  // 1. Zero-ohm links and ideal batteries fold terminals into supernodes.
   for (let e = 0; e < net.count; e++) {
-    const E = ideal(e);
-    if (E === undefined) continue;
+    const t = types[e];
+    if (t !== LINK && t !== VSRC) continue;
+    const E = t === LINK ? 0 : net.value[e];
     const ia = net.a[e];
     const ib = net.b[e];
     const ra = uf.find(ia);
@@ -179,7 +204,7 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
     const oa = uf.offset(ia);
     const ob = uf.offset(ib);
     if (ra === rb) {
-      if (net.type[e] !== EL.link || Math.abs(oa - ob) > 1e-12) sourceLoop.add(name(e));
+      if (t !== LINK || Math.abs(oa - ob) > 1e-12) sourceLoop.add(e);
       continue; // a redundant zero-ohm link carries no current of its own
     }
     uf.parent[ra] = rb;
@@ -192,16 +217,25 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
     rep[t] = uf.find(t);
     off[t] = uf.offset(t);
   }
+  const alternators: number[] = [];
+  for (let e = 0; e < net.count; e++) if (types[e] === ALT) alternators.push(e);
+  const altUsable = new Uint8Array(net.count);
+  for (const e of alternators) {
+    altUsable[e] = 1;
+    if (rep[net.a[e]] === rep[net.b[e]]) {
+      altUsable[e] = 0;
+      sourceLoop.add(e);
+    }
+  }
   if (sourceLoop.size) {
-    // Name every ideal source sharing a supernode with the offending one.
     const roots = new Set<number>();
-    for (let e = 0; e < net.count; e++) if (sourceLoop.has(name(e))) roots.add(rep[net.a[e]]);
+    for (const e of sourceLoop) roots.add(rep[net.a[e]]);
     const names = new Set<string>();
     for (let e = 0; e < net.count; e++) {
-      const E = ideal(e);
-      if (E !== undefined && roots.has(rep[net.a[e]]) && net.type[e] !== EL.link) names.add(name(e));
+      const t = types[e];
+      if ((t === VSRC || t === ALT) && (roots.has(rep[net.a[e]]) || roots.has(rep[net.b[e]]))) names.add(name(e));
     }
-    for (let e = 0; e < net.count; e++) if (sourceLoop.has(name(e)) && net.type[e] !== EL.link) names.add(name(e));
+    for (const e of sourceLoop) if (types[e] !== LINK) names.add(name(e));
     issues.push({
       severity: "error",
       code: "ideal-source-loop",
@@ -210,7 +244,7 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
     });
   }
   for (let e = 0; e < net.count; e++) {
-    if (net.type[e] === EL.norton && rep[net.a[e]] === rep[net.b[e]] && Math.abs(off[net.a[e]] - off[net.b[e]]) < 1e-12) {
+    if (types[e] === NORTON && rep[net.a[e]] === rep[net.b[e]] && Math.abs(off[net.a[e]] - off[net.b[e]]) < 1e-12) {
       const r = 1 / net.g[e];
       issues.push({
         severity: "error",
@@ -222,10 +256,10 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
   }
 
   // 2. Islands joined by conductances; each gets a fixed node (the reference island: 0 V at the reference).
-  const isConductance = (t: number) => t === EL.resistor || t === EL.norton || t === EL.power;
+  const isConductance = (t: number) => t === RES || t === NORTON || t === POWER;
   const island = new OffsetUnion(T);
   for (let e = 0; e < net.count; e++) {
-    if (!isConductance(net.type[e])) continue;
+    if (!isConductance(types[e])) continue;
     const x = island.find(rep[net.a[e]]);
     const y = island.find(rep[net.b[e]]);
     if (x !== y) island.parent[x] = y;
@@ -233,50 +267,53 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
   const islandOf = new Int32Array(T);
   for (let t = 0; t < T; t++) islandOf[t] = island.find(rep[t]);
   const refIsland = net.referenceTerminal >= 0 ? islandOf[net.referenceTerminal] : -1;
-  // Current sources whose ends lie in different islands have no return path.
+  // Current sources (and alternators) whose ends lie in different islands have no return path.
   const deadSource = new Uint8Array(net.count);
   for (let e = 0; e < net.count; e++) {
-    const t = net.type[e];
-    const isCurrent = t === EL.isource || (t === EL.alternator && modeOf.get(e) === "current-limit");
+    const t = types[e];
+    if (t !== ISRC && t !== ALT) continue;
     const connected = net.wired[net.a[e]] || net.wired[net.b[e]];
-    if (isCurrent && !connected) deadSource[e] = 1; // reported as unconnected already
-    else if (isCurrent && islandOf[net.a[e]] !== islandOf[net.b[e]]) {
-      const amps = t === EL.isource ? net.value[e] : net.g[e];
+    if (!connected) {
+      deadSource[e] = 1; // reported as unconnected already
+      altUsable[e] = 0;
+    } else if (islandOf[net.a[e]] !== islandOf[net.b[e]]) {
+      deadSource[e] = 1;
+      altUsable[e] = 0;
+      const amps = t === ISRC ? net.value[e] : net.g[e];
       if (amps !== 0) {
-        deadSource[e] = 1;
         issues.push({
           severity: "error",
           code: "no-return-path",
-          message: `${name(e)} draws ${Math.round(amps * 10) / 10} A but one side of it has no path back to the other. Wire its ${t === EL.isource ? "negative (or case)" : "case"} to ground.`,
+          message:
+            t === ISRC
+              ? `${name(e)} draws ${Math.round(amps * 10) / 10} A but one side of it has no path back to the other. Wire its negative (or case) to ground.`
+              : `${name(e)} has no path from its case back to its output: its case is not grounded to the circuit it feeds. Wire the case to ground.`,
           ids: [name(e)],
         });
       }
     }
   }
-
-  // Fixed value of each representative: the reference node, and one node per floating island.
   const fixed = new Int8Array(T);
   const fixedValue = new Float64Array(T);
   const floating = new Uint8Array(T);
-  const islandFixed = new Map<number, number>();
+  const islandFixed = new Set<number>();
   if (net.referenceTerminal >= 0) {
     const r = rep[net.referenceTerminal];
     fixed[r] = 1;
     fixedValue[r] = -off[net.referenceTerminal];
-    islandFixed.set(refIsland, r);
+    islandFixed.add(refIsland);
   }
   for (let t = 0; t < T; t++) {
-    const r = rep[t];
     if (islandOf[t] !== refIsland) floating[t] = 1;
     if (!islandFixed.has(islandOf[t])) {
-      islandFixed.set(islandOf[t], r);
-      fixed[r] = 1;
-      fixedValue[r] = -off[t];
+      islandFixed.add(islandOf[t]);
+      fixed[rep[t]] = 1;
+      fixedValue[rep[t]] = -off[t];
     }
   }
   reportFloating(net, floating, islandOf, issues);
 
-  // 3. Free unknowns and the matrix pattern.
+  // 3. Free unknowns, the matrix pattern, its ordering and symbolic factorisation.
   const index = new Int32Array(T).fill(-1);
   let n = 0;
   for (let t = 0; t < T; t++) if (rep[t] === t && !fixed[t]) index[t] = n++;
@@ -284,7 +321,7 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
   const eb = new Int32Array(net.count);
   let m = 0;
   for (let e = 0; e < net.count; e++) {
-    if (!isConductance(net.type[e])) continue;
+    if (!isConductance(types[e])) continue;
     const x = index[rep[net.a[e]]];
     const y = index[rep[net.b[e]]];
     if (x >= 0 && y >= 0 && x !== y) {
@@ -297,7 +334,7 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
   const sym = symbolic(pattern, minimumDegree(pattern));
   const pos = new Int32Array(net.count * 4).fill(-1);
   for (let e = 0; e < net.count; e++) {
-    if (!isConductance(net.type[e])) continue;
+    if (!isConductance(types[e])) continue;
     const x = index[rep[net.a[e]]];
     const y = index[rep[net.b[e]]];
     if (x >= 0) pos[4 * e] = position(pattern, x, x);
@@ -307,39 +344,69 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
       pos[4 * e + 3] = position(pattern, y, x);
     }
   }
+  let hasPower = false;
+  for (let e = 0; e < net.count; e++) if (types[e] === POWER) hasPower = true;
+  return { T, rep, off, tree, fixed, fixedValue, index, n, pattern, sym, pos, deadSource, alternators, altUsable, hasPower };
+}
 
-  // 4. Newton iterations (a single linear solve when there is no constant-power load).
+/** Newton iterations for one set of alternator modes, on the prepared structure. */
+function iterate(
+  net: Netlist,
+  st: Structure,
+  modes: AlternatorMode[],
+  systemVoltage: number,
+  options: SolveOptions,
+  warm: Float64Array | undefined,
+  final: boolean,
+): Network {
+  const { T, rep, off, fixed, fixedValue, index, n, pattern, sym, pos, deadSource, alternators, altUsable, hasPower } = st;
+  const issues: SolveIssue[] = [];
+  const altMode = new Int8Array(net.count);
+  alternators.forEach((e, k) => (altMode[e] = modes[k] === "regulating" ? REGULATING : modes[k] === "current-limit" ? LIMITED : 3));
+  // Regulating alternators border the nodal matrix: one constraint row each.
+  const active = alternators.filter((e) => altUsable[e] && altMode[e] === REGULATING);
+  const mA = active.length;
+  const Y = active.map(() => new Float64Array(n));
+  const cvec = active.map(() => new Float64Array(n));
+  const lambda = new Float64Array(mA);
+
   const vmin = options.powerMinVoltageFraction * systemVoltage;
   const V = new Float64Array(T); // by representative
   for (let t = 0; t < T; t++) if (fixed[t]) V[t] = fixedValue[t];
+  if (warm) for (let t = 0; t < T; t++) if (rep[t] === t && !fixed[t]) V[t] = warm[t] - off[t];
   const ax = new Float64Array(pattern.rowIdx.length);
   const rhs = new Float64Array(n);
   const x = new Float64Array(n);
-  const hasPower = net.type.subarray(0, net.count).some((t) => t === EL.power);
-  const volts = (e: number) => V[rep[net.a[e]]] + off[net.a[e]] - (V[rep[net.b[e]]] + off[net.b[e]]);
+  const types = net.type;
+  const ta = net.a;
+  const tb = net.b;
+  const eg = net.g;
+  const ev = net.value;
+  const volts = (e: number) => V[rep[ta[e]]] + off[ta[e]] - (V[rep[tb[e]]] + off[tb[e]]);
   let iterations = 0;
   let converged = false;
   let fixedPoint = false;
-  const lastDv = new Float64Array(1);
+  let lastDv = 0;
   for (let it = 0; it < options.maxNewtonIterations; it++) {
     iterations++;
     ax.fill(0);
     rhs.fill(0);
     for (let e = 0; e < net.count; e++) {
-      const t = net.type[e];
+      const t = types[e];
       let g = 0;
       let J = 0;
-      if (t === EL.resistor) g = net.g[e];
-      else if (t === EL.norton) {
-        g = net.g[e];
-        J = -net.g[e] * net.value[e];
-      } else if (t === EL.isource) J = deadSource[e] ? 0 : net.value[e];
-      else if (t === EL.alternator && modeOf.get(e) === "current-limit") {
-        // The rated current leaves the alternator at its out terminal (a): from a through it to b is negative.
-        J = deadSource[e] ? 0 : -net.g[e];
-      } else if (t === EL.power) {
-        const P = net.value[e];
-        const v0 = it === 0 ? systemVoltage : volts(e);
+      if (t === RES) g = eg[e];
+      else if (t === NORTON) {
+        g = eg[e];
+        J = -eg[e] * ev[e];
+      } else if (t === ISRC) J = deadSource[e] ? 0 : ev[e];
+      else if (t === ALT) {
+        // At its limit the rated current leaves the alternator at its out terminal (a): a -> b is negative.
+        if (altMode[e] !== LIMITED || deadSource[e]) continue;
+        J = -eg[e];
+      } else if (t === POWER) {
+        const P = ev[e];
+        const v0 = it === 0 && !warm ? systemVoltage : volts(e);
         if (v0 < vmin) g = P / (vmin * vmin);
         else if (fixedPoint) g = P / (v0 * v0);
         else {
@@ -347,12 +414,14 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
           J = (2 * P) / v0;
         }
       } else continue;
-      const ra = rep[net.a[e]];
-      const rb = rep[net.b[e]];
-      const c = g * (off[net.a[e]] - off[net.b[e]]) + J; // constant part of the current a -> b
+      const ia = ta[e];
+      const ib = tb[e];
+      const ra = rep[ia];
+      const rb = rep[ib];
+      if (ra === rb) continue;
+      const c = g * (off[ia] - off[ib]) + J; // constant part of the current a -> b
       const xa = index[ra];
       const xb = index[rb];
-      if (ra === rb) continue;
       if (xa >= 0) {
         ax[pos[4 * e]] += g;
         rhs[xa] -= c;
@@ -375,15 +444,54 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
         iterations--;
         continue;
       }
-      issues.push({
-        severity: "error",
-        code: "numeric-failure",
-        message: "The circuit's equations could not be solved (a singular system). Check for parts with no path to ground.",
-        ids: [],
-      });
-      return { ok: false, v: new Float64Array(T), current: new Float64Array(net.count), iterations, residual: Infinity, issues, floating };
+      issues.push({ severity: "error", code: "numeric-failure", message: "The circuit's equations could not be solved (a singular system). Check for parts with no path to ground.", ids: [] });
+      return { ok: false, v: new Float64Array(T), current: new Float64Array(net.count), iterations, residual: Infinity, issues };
     }
     solveFactored(sym, rhs, x);
+    if (mA > 0) {
+      // x = x0 + Y lambda with Y = K^-1 C^T; lambda from C x + known = Vreg (a small dense system).
+      const S = new Float64Array(mA * mA);
+      const r = new Float64Array(mA);
+      active.forEach((e, k) => {
+        const c = cvec[k];
+        c.fill(0);
+        const ia = ta[e];
+        const ib = tb[e];
+        const xa = index[rep[ia]];
+        const xb = index[rep[ib]];
+        let known = off[ia] - off[ib];
+        if (xa >= 0) c[xa] += 1;
+        else known += V[rep[ia]];
+        if (xb >= 0) c[xb] -= 1;
+        else known -= V[rep[ib]];
+        solveFactored(sym, c, Y[k]);
+        r[k] = ev[e] - known - (xa >= 0 ? x[xa] : 0) + (xb >= 0 ? x[xb] : 0);
+      });
+      active.forEach((_e, k) => {
+        const c = cvec[k];
+        for (let j = 0; j < mA; j++) {
+          let sum = 0;
+          const y = Y[j];
+          for (let q = 0; q < n; q++) if (c[q] !== 0) sum += c[q] * y[q];
+          S[k * mA + j] = sum;
+        }
+      });
+      if (!solveDense(S, r, lambda, mA)) {
+        const ids = active.map((e) => net.ownerIds[net.owner[e]]);
+        issues.push({
+          severity: "error",
+          code: "ideal-source-loop",
+          message: `${ids.join(", ")} are tied together with no resistance between them, so how they share the load is not defined. Give each its own output cable.`,
+          ids,
+        });
+        return { ok: false, v: new Float64Array(T), current: new Float64Array(net.count), iterations, residual: Infinity, issues };
+      }
+      for (let k = 0; k < mA; k++) {
+        const y = Y[k];
+        const l = lambda[k];
+        for (let q = 0; q < n; q++) x[q] += l * y[q];
+      }
+    }
     let dv = 0;
     for (let t = 0; t < T; t++) {
       const k = index[t];
@@ -392,52 +500,82 @@ function solveNetwork(net: Netlist, alternators: number[], modes: AlternatorMode
       if (d > dv) dv = d;
       V[t] = x[k];
     }
-    lastDv[0] = dv;
+    lastDv = dv;
     if (!hasPower) {
       converged = true;
       break;
     }
-    if (it > 0 && dv < options.voltageTolerance * Math.max(1, systemVoltage)) {
+    if ((it > 0 || warm) && dv < options.voltageTolerance * Math.max(1, systemVoltage)) {
       converged = true;
       break;
     }
     fixedPoint = false;
   }
 
-  // 5. Terminal voltages and element currents.
+  // Terminal voltages and element currents.
   const v = new Float64Array(T);
   for (let t = 0; t < T; t++) v[t] = V[rep[t]] + off[t];
   const current = new Float64Array(net.count);
   const out = new Float64Array(T); // current leaving each terminal through non-ideal elements
   let largest = 0;
+  const lambdaOf = new Map<number, number>();
+  active.forEach((e, k) => lambdaOf.set(e, lambda[k]));
   for (let e = 0; e < net.count; e++) {
-    const t = net.type[e];
-    const dv = v[net.a[e]] - v[net.b[e]];
+    const t = types[e];
+    const dv = v[ta[e]] - v[tb[e]];
     let I = 0;
-    if (t === EL.resistor) I = net.g[e] * dv;
-    else if (t === EL.norton) I = net.g[e] * (dv - net.value[e]);
-    else if (t === EL.isource) I = deadSource[e] ? 0 : net.value[e];
-    else if (t === EL.alternator && modeOf.get(e) === "current-limit") I = deadSource[e] ? 0 : -net.g[e];
-    else if (t === EL.power) I = dv >= vmin ? net.value[e] / dv : (dv * net.value[e]) / (vmin * vmin);
+    if (t === RES) I = eg[e] * dv;
+    else if (t === NORTON) I = eg[e] * (dv - ev[e]);
+    else if (t === ISRC) I = deadSource[e] ? 0 : ev[e];
+    else if (t === ALT) I = deadSource[e] ? 0 : altMode[e] === LIMITED ? -eg[e] : -(lambdaOf.get(e) ?? 0);
+    else if (t === POWER) I = dv >= vmin ? ev[e] / dv : (dv * ev[e]) / (vmin * vmin);
     else continue;
     current[e] = I;
-    out[net.a[e]] += I;
-    out[net.b[e]] -= I;
+    out[ta[e]] += I;
+    out[tb[e]] -= I;
     if (Math.abs(I) > largest) largest = Math.abs(I);
   }
-  // Currents in ideal links and sources: peel the supernode trees from their leaves.
-  treeCurrents(net, tree, out, current, T);
+  // Currents in ideal links and batteries: peel the supernode trees from their leaves.
+  treeCurrents(net, st.tree, out, current, T);
   const worst = kclResidual(out, rep, fixed, T);
-  if (!converged || worst > 1e-6 * Math.max(1, largest)) {
+  if (!converged || (final && worst > 1e-6 * Math.max(1, largest))) {
     issues.push({
       severity: "error",
       code: "non-convergence",
-      message: `The solution did not settle (${iterations} iterations, largest current mismatch ${worst.toExponential(2)} A, last step ${lastDv[0].toExponential(2)} V). A constant-power load may be asking more than the supply can give.`,
+      message: `The solution did not settle (${iterations} iterations, largest current mismatch ${worst.toExponential(2)} A, last step ${lastDv.toExponential(2)} V). A constant-power load may be asking more than the supply can give.`,
       ids: [],
     });
-    return { ok: false, v, current, iterations, residual: worst, issues, floating };
+    return { ok: false, v, current, iterations, residual: worst, issues };
   }
-  return { ok: true, v, current, iterations, residual: worst, issues, floating };
+  return { ok: true, v, current, iterations, residual: worst, issues };
+}
+
+/** Gaussian elimination with partial pivoting for the small bordered system; false when it is singular. */
+function solveDense(A: Float64Array, b: Float64Array, out: Float64Array, m: number): boolean {
+  const a = A.slice();
+  const r = b.slice();
+  let scale = 0;
+  for (let i = 0; i < m * m; i++) scale = Math.max(scale, Math.abs(a[i]));
+  for (let k = 0; k < m; k++) {
+    let p = k;
+    for (let i = k + 1; i < m; i++) if (Math.abs(a[i * m + k]) > Math.abs(a[p * m + k])) p = i;
+    if (!(Math.abs(a[p * m + k]) > 1e-12 * scale)) return false;
+    if (p !== k) {
+      for (let j = 0; j < m; j++) [a[k * m + j], a[p * m + j]] = [a[p * m + j], a[k * m + j]];
+      [r[k], r[p]] = [r[p], r[k]];
+    }
+    for (let i = k + 1; i < m; i++) {
+      const f = a[i * m + k] / a[k * m + k];
+      for (let j = k; j < m; j++) a[i * m + j] -= f * a[k * m + j];
+      r[i] -= f * r[k];
+    }
+  }
+  for (let k = m - 1; k >= 0; k--) {
+    let sum = r[k];
+    for (let j = k + 1; j < m; j++) sum -= a[k * m + j] * out[j];
+    out[k] = sum / a[k * m + k];
+  }
+  return true;
 }
 
 function treeCurrents(net: Netlist, tree: number[], outIn: Float64Array, current: Float64Array, T: number): void {
@@ -519,20 +657,28 @@ function compose(
   options: SolveOptions,
 ): SolveResult {
   const terminals: Record<string, number> = {};
-  const clean = (x: number) => (Number.isFinite(x) ? (Math.abs(x) < 1e-15 ? 0 : x) : NaN);
-  net.terminalNames.forEach((tn, t) => (terminals[tn] = clean(nw.v[t])));
+  let bad = false;
+  const clean = (x: number) => {
+    if (!Number.isFinite(x)) {
+      bad = true;
+      return 0;
+    }
+    return Math.abs(x) < 1e-15 ? 0 : x;
+  };
+  const names = net.terminalNames;
+  for (let t = 0; t < names.length; t++) terminals[names[t]] = clean(nw.v[t]);
   const components: Record<string, ComponentResult> = {};
   const modeByElement = new Map<number, AlternatorMode>();
   alternators.forEach((e, k) => modeByElement.set(e, modes[k]));
   const vmin = options.powerMinVoltageFraction * doc.systemVoltage;
   net.components.forEach((c, ci) => {
-    const names = TERMINALS[c.kind];
-    const va = terminals[`${c.id}.${names[0]}`];
-    if (names.length === 1) {
+    const t0 = net.componentTerminal[ci];
+    const va = clean(nw.v[t0]);
+    if (c.kind === "junction" || c.kind === "ground") {
       components[c.id] = { voltage: va };
       return;
     }
-    const vb = terminals[`${c.id}.${names[1]}`];
+    const vb = clean(nw.v[t0 + 1]);
     const e = net.componentElement[ci];
     const I = e >= 0 ? clean(nw.current[e]) : 0;
     const voltage = clean(va - vb);
@@ -560,14 +706,15 @@ function compose(
     }
   });
   const wires: Record<string, WireResult> = {};
-  doc.wires.forEach((w, wi) => {
+  const pct = 100 / doc.systemVoltage;
+  for (let wi = 0; wi < doc.wires.length; wi++) {
     const e = net.wireElement[wi];
-    if (e < 0) return;
+    if (e < 0) continue;
     const I = clean(nw.current[e]);
-    const drop = clean(terminals[w.from] - terminals[w.to]);
+    const drop = clean(nw.v[net.a[e]] - nw.v[net.b[e]]);
     const R = net.wireResistance[wi];
-    wires[w.id] = { current: I, resistance: R, drop, dropPercent: (100 * Math.abs(drop)) / doc.systemVoltage, power: clean(I * I * R) };
-  });
+    wires[net.wireIds[wi]] = { current: I, resistance: R, drop, dropPercent: pct * Math.abs(drop), power: clean(I * I * R) };
+  }
   const result: SolveResult = {
     status: issues.some((i) => i.severity === "error") || !nw.ok ? "error" : "ok",
     state: options.state,
@@ -580,15 +727,11 @@ function compose(
     wires,
     issues,
   };
-  // Never NaN or Infinity in a result.
-  const json = JSON.stringify(result, (_k, val) => (typeof val === "number" && !Number.isFinite(val) ? "__bad__" : val));
-  if (json.includes("__bad__")) {
-    return {
-      ...JSON.parse(json.replace(/"__bad__"/g, "0")),
-      status: "error",
-      converged: false,
-      issues: [...issues, { severity: "error", code: "numeric-failure", message: "Some values could not be computed; they are shown as 0. Check the circuit for extreme values.", ids: [] }],
-    };
+  // Never NaN or Infinity in a result: clean() put 0 in their place and says so here.
+  if (bad) {
+    result.status = "error";
+    result.converged = false;
+    issues.push({ severity: "error", code: "numeric-failure", message: "Some values could not be computed; they are shown as 0. Check the circuit for extreme values.", ids: [] });
   }
   return result;
 }

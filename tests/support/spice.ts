@@ -9,7 +9,7 @@ import { TERMINALS, type CircuitDocument } from "@/lib/circuit";
  * every wire, joint and resistive load a resistor, constant-current loads as current sources), with node "0" at
  * the reference terminal. Only for circuits with no zero-ohm parts, alternators or constant-power loads.
  */
-export function toSpiceDeck(doc: CircuitDocument, reference: string): { deck: string; nodeOf: Map<string, string> } {
+export function toSpiceDeck(doc: CircuitDocument, reference: string, wireOhm: Record<string, number> = {}): { deck: string; nodeOf: Map<string, string> } {
   const nodeOf = new Map<string, string>();
   let k = 0;
   for (const c of doc.components) for (const t of TERMINALS[c.kind]) nodeOf.set(`${c.id}.${t}`, `n${k++}`);
@@ -19,12 +19,13 @@ export function toSpiceDeck(doc: CircuitDocument, reference: string): { deck: st
     const p = (t: string) => nodeOf.get(`${c.id}.${t}`);
     if (c.kind === "battery") {
       lines.push(`V${c.id} x${c.id} ${p("neg")} DC ${c.openCircuitVoltage}`, `Rint${c.id} ${p("pos")} x${c.id} ${c.internalResistance}`);
-    } else if (c.kind === "joint") lines.push(`R${c.id} ${p("a")} ${p("b")} ${c.resistance}`);
+    } else if (c.kind === "joint" || c.kind === "fuse") lines.push(`R${c.id} ${p("a")} ${p("b")} ${c.resistance}`);
     else if (c.kind === "load" && c.mode === "resistance") lines.push(`R${c.id} ${p("pos")} ${p("neg")} ${c.value}`);
     else if (c.kind === "load" && c.mode === "current") lines.push(`I${c.id} ${p("pos")} ${p("neg")} DC ${c.value}`);
     else if (c.kind !== "ground" && c.kind !== "junction") throw new Error(`toSpiceDeck: ${c.kind} is not supported`);
   }
-  for (const w of doc.wires) lines.push(`R${w.id} ${nodeOf.get(w.from)} ${nodeOf.get(w.to)} ${w.resistanceOhm}`);
+  // Sized cables take the resistance the conductor engine gave them (wireOhm); the network is what is checked.
+  for (const w of doc.wires) lines.push(`R${w.id} ${nodeOf.get(w.from)} ${nodeOf.get(w.to)} ${w.resistanceOhm ?? wireOhm[w.id]}`);
   lines.push(".options gmin=1e-15 reltol=1e-12 vntol=1e-12 abstol=1e-15", ".control", "op", "set filetype=ascii", "write {RAW} all", ".endc", ".end");
   return { deck: lines.join("\n") + "\n", nodeOf };
 }
