@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { QuickCheck } from "@/components/quick-check/quick-check";
 import { DropIllustration } from "@/components/shell/drop-illustration";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { areas } from "@/lib/areas";
@@ -55,6 +56,17 @@ export default function HomePage() {
           <div className="mx-auto w-full max-w-md lg:max-w-none">
             <DropIllustration />
           </div>
+        </div>
+      </section>
+
+      <section className="mx-auto max-w-7xl px-4 pt-12 sm:px-6" aria-labelledby="check-heading">
+        <h2 id="check-heading" className="text-2xl font-semibold tracking-tight">What should a healthy cranking circuit read?</h2>
+        <p className="mt-2 max-w-3xl text-graphite-700">
+          A free check, no account needed: the battery, its two cables and the joints at each end, solved the way the full workspace solves a
+          whole vehicle.
+        </p>
+        <div className="mt-6">
+          <QuickCheck />
         </div>
       </section>
 
