@@ -5,6 +5,10 @@ const envSchema = z.object({
   DATABASE_URL: z.string().url().default("postgres://ampwright@127.0.0.1:54329/ampwright"),
   APP_URL: z.string().url().default("http://127.0.0.1:3000"),
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  SMTP_URL: z.string().default("smtp://127.0.0.1:1025"),
+  MAIL_FROM: z.string().default("Ampwright <no-reply@ampwright.invalid>"),
+  /** Signs sessions; required in production (npm start generates one for local runs). */
+  BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters").optional(),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -17,6 +21,9 @@ export function env(): Env {
     if (!parsed.success) {
       const problems = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ");
       throw new Error(`Ampwright's environment is not valid (${problems}). Compare with .env.example.`);
+    }
+    if (parsed.data.NODE_ENV === "production" && !parsed.data.BETTER_AUTH_SECRET && process.env.NEXT_PHASE !== "phase-production-build") {
+      throw new Error("BETTER_AUTH_SECRET is required in production (32 or more random characters). See .env.example.");
     }
     cached = parsed.data;
   }

@@ -43,3 +43,23 @@ stop_group() {
   for _ in $(seq 50); do kill -0 "$pid" 2>/dev/null || return 0; sleep 0.1; done
   kill -KILL -- "-$pid" 2>/dev/null || true
 }
+
+# The local mail catcher (maildev): SMTP and its web inbox + REST API, both on loopback.
+start_maildev() {
+  local smtp="$1" web="$2" log="$3"
+  if port_busy "$smtp" || port_busy "$web"; then
+    say "mail catcher ports $smtp/$web are in use; set AMP_SMTP_PORT / AMP_MAIL_WEB_PORT"; return 1
+  fi
+  setsid "$ROOT/node_modules/.bin/maildev" --smtp "$smtp" --ip 127.0.0.1 --web "$web" --web-ip 127.0.0.1 >"$log" 2>&1 &
+  MAILDEV_PID=$!
+  for _ in $(seq 60); do port_busy "$smtp" && port_busy "$web" && return 0; sleep 0.25; done
+  say "the mail catcher did not start; see $log"; return 1
+}
+
+# A secret for signing sessions, made once per clone for local runs (production sets BETTER_AUTH_SECRET itself).
+local_secret() {
+  local f="$ROOT/.data/auth-secret"
+  mkdir -p "$ROOT/.data"
+  [ -s "$f" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' >"$f"
+  cat "$f"
+}

@@ -10,6 +10,9 @@ export AMP_PG_NAME=pg AMP_PG_PORT="${AMP_PG_PORT:-54329}" AMP_PG_DB=ampwright
 export DATABASE_URL="${DATABASE_URL:-postgres://ampwright@127.0.0.1:$AMP_PG_PORT/ampwright}"
 export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
 export NODE_ENV=production
+SMTP_PORT="${AMP_SMTP_PORT:-1025}"
+MAIL_WEB_PORT="${AMP_MAIL_WEB_PORT:-1080}"
+export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}"
 
 if port_busy "$PORT"; then
   say "port $PORT is already in use (another npm start?). Stop it, or run: PORT=3001 npm start"; exit 1
@@ -19,16 +22,20 @@ command -v curl >/dev/null || apt_install curl
 ensure_node_modules
 
 SERVER_PID=""
+MAILDEV_PID=""
 cleanup() {
   trap - INT TERM EXIT
   say "stopping"
   stop_group "$SERVER_PID"
+  stop_group "$MAILDEV_PID"
   bash scripts/db.sh stop || true
   say "stopped"
 }
 trap cleanup INT TERM EXIT
 
+export BETTER_AUTH_SECRET="${BETTER_AUTH_SECRET:-$(local_secret)}"
 bash scripts/db.sh start
+start_maildev "$SMTP_PORT" "$MAIL_WEB_PORT" "$ROOT/.data/maildev.log"
 say "applying migrations"
 node_modules/.bin/tsx db/migrate.ts
 node_modules/.bin/tsx db/seed.ts
@@ -49,6 +56,8 @@ cat >&2 <<MSG
   First things to try:
     - Open the start page and read what each area is for.
     - Check http://127.0.0.1:$PORT/api/health: it says whether the database is up.
+    - Mail Ampwright sends (sign-up confirmations, password resets) lands in the local inbox at
+      http://127.0.0.1:$MAIL_WEB_PORT
     - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Eastfield Technical Institute)
       with their vehicles.
 

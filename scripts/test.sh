@@ -12,6 +12,10 @@ export TEST_PORT="${TEST_PORT:-3100}"
 export APP_URL="http://127.0.0.1:$TEST_PORT"
 export E2E_BASE_URL="$APP_URL"
 export NEXT_DIST_DIR=.next-test
+export AMP_SMTP_PORT=2526 AMP_MAIL_WEB_PORT=2581
+export SMTP_URL="smtp://127.0.0.1:$AMP_SMTP_PORT"
+export MAILDEV_API="http://127.0.0.1:$AMP_MAIL_WEB_PORT"
+export BETTER_AUTH_SECRET="test-secret-$(date +%s)-0123456789abcdefghijklmnop"
 REPORTS="$ROOT/test-artifacts/reports"
 START=$(date +%s)
 
@@ -23,9 +27,11 @@ command -v ngspice >/dev/null || { say "installing Debian's ngspice (the solver'
 set +e
 
 SERVER_PID=""
+MAILDEV_PID=""
 cleanup() {
   trap - INT TERM EXIT
   stop_group "$SERVER_PID"
+  stop_group "$MAILDEV_PID"
   bash scripts/db.sh destroy >/dev/null 2>&1 || true
 }
 trap cleanup INT TERM EXIT
@@ -34,6 +40,7 @@ rm -rf "$REPORTS"; mkdir -p "$REPORTS"
 # Throwaway data: a fresh cluster each run.
 bash scripts/db.sh destroy >/dev/null 2>&1 || true
 bash scripts/db.sh start || { echo "0 passed, 1 failed"; exit 1; }
+start_maildev "$AMP_SMTP_PORT" "$AMP_MAIL_WEB_PORT" "$REPORTS/maildev.log" || { echo "0 passed, 1 failed"; exit 1; }
 
 check() { # name, command...: a step that is one check in the count
   local name="$1"; shift

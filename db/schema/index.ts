@@ -1,3 +1,5 @@
 export * from "./meta";
 export * from "./organizations";
 export * from "./vehicles";
+export * from "./auth";
+export * from "./mail";

@@ -1,0 +1,23 @@
+import { index, integer, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+
+/**
+ * Mail waiting to be sent. A row is written in the same transaction as the action that causes it; the sender
+ * delivers it with retries and backoff, so a mail server that is down loses nothing.
+ */
+export const mailOutbox = pgTable(
+  "mail_outbox",
+  {
+    id: serial("id").primaryKey(),
+    to: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    text: text("body_text").notNull(),
+    html: text("body_html"),
+    kind: text("kind").notNull(),
+    attempts: integer("attempts").notNull().default(0),
+    nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+    lastError: text("last_error"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("mail_outbox_due_idx").on(t.sentAt, t.nextAttemptAt)],
+);

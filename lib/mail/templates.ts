@@ -1,0 +1,18 @@
+/** Ampwright's messages, plain text first (shop inboxes often show only that), with a simple HTML part. */
+export type Message = { subject: string; text: string; html: string };
+
+const esc = (s: string) => s.replace(/[&<>"]/g, (c) => ({ "&": "&amp;", "<": "&lt;", ">": "&gt;", '"': "&quot;" })[c] as string);
+
+function wrap(lines: string[], link: { url: string; label: string }): string {
+  return `<div style="font-family:sans-serif;max-width:560px">${lines.map((l) => `<p>${esc(l)}</p>`).join("")}<p><a href="${esc(link.url)}" style="background:#a65a24;color:#fff;padding:10px 16px;border-radius:6px;text-decoration:none">${esc(link.label)}</a></p><p style="color:#68737d;font-size:12px">${esc(link.url)}</p></div>`;
+}
+
+export function verificationMessage(name: string, url: string): Message {
+  const lines = [`Hello ${name},`, "Confirm this address to finish setting up your Ampwright account. The link works for one hour."];
+  return { subject: "Confirm your e-mail address for Ampwright", text: `${lines.join("\n\n")}\n\n${url}\n`, html: wrap(lines, { url, label: "Confirm my address" }) };
+}
+
+export function resetMessage(name: string, url: string): Message {
+  const lines = [`Hello ${name},`, "Someone asked to reset the password of your Ampwright account. If it was you, choose a new one with the link below; it works for one hour. If it was not, ignore this message: nothing changes."];
+  return { subject: "Reset your Ampwright password", text: `${lines.join("\n\n")}\n\n${url}\n`, html: wrap(lines, { url, label: "Choose a new password" }) };
+}

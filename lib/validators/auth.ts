@@ -1,0 +1,17 @@
+import { z } from "zod";
+
+export const PASSWORD_MIN = 10;
+
+const email = z.string().trim().toLowerCase().email("enter an e-mail address such as name@shop.example");
+const password = z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(128, "at most 128 characters");
+
+/** Shared by the sign-up form and the server. */
+export const signUpInput = z.object({ name: z.string().trim().min(1, "enter your name").max(80, "at most 80 characters"), email, password });
+export const signInInput = z.object({ email, password: z.string().min(1, "enter your password") });
+export const forgotPasswordInput = z.object({ email });
+export const resetPasswordInput = z
+  .object({ password, confirm: z.string() })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "the two passwords differ" });
+
+export type SignUpInput = z.infer<typeof signUpInput>;
+export type SignInInput = z.infer<typeof signInInput>;
