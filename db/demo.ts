@@ -58,3 +58,18 @@ export const demoVehicles = [
     odometerKm: null,
   },
 ];
+
+/** Demo sign-ins, one person per role (invented people; .example addresses never deliver). */
+export const DEMO_PASSWORD = "larkspur-demo-2026";
+
+export const demoPeople = [
+  { id: "usr_demo_owner", name: "Dana Ferreira", email: "dana@larkspur.example", org: demoShop.id, role: "owner" },
+  { id: "usr_demo_lead", name: "Tobias Venn", email: "tobias@larkspur.example", org: demoShop.id, role: "lead" },
+  { id: "usr_demo_tech", name: "Priya Halvorsen", email: "priya@larkspur.example", org: demoShop.id, role: "technician" },
+  { id: "usr_demo_writer", name: "Sam Achterberg", email: "sam@larkspur.example", org: demoShop.id, role: "viewer" },
+  { id: "usr_demo_instructor", name: "Lena Moravec", email: "lena@eastfield.example", org: demoClass.id, role: "owner" },
+  { id: "usr_demo_assistant", name: "Jonah Pell", email: "jonah@eastfield.example", org: demoClass.id, role: "lead" },
+  { id: "usr_demo_student1", name: "Ines Karlsen", email: "ines@eastfield.example", org: demoClass.id, role: "student" },
+  { id: "usr_demo_student2", name: "Theo Marsh", email: "theo@eastfield.example", org: demoClass.id, role: "student" },
+  { id: "usr_demo_observer", name: "Ruth Osei", email: "ruth@eastfield.example", org: demoClass.id, role: "viewer" },
+] as const;

@@ -1,6 +1,7 @@
 import { sql } from "drizzle-orm";
-import { demoClass, demoShop, demoVehicles } from "./demo";
-import { organization, seedRuns, vehicles } from "./schema";
+import { hashPassword } from "better-auth/crypto";
+import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
+import { account, member, organization, seedRuns, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -13,6 +14,24 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
     load: async (tx) => {
       await tx.insert(organization).values([demoShop, demoClass]);
       await tx.insert(vehicles).values(demoVehicles);
+    },
+  },
+  {
+    name: "demo-people-v1",
+    load: async (tx) => {
+      // Demo sign-ins exist only on local runs (npm start sets DEMO=1), never in a production deployment.
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      const hash = await hashPassword(DEMO_PASSWORD);
+      const now = new Date();
+      for (const p of demoPeople) {
+        await tx.insert(user).values({ id: p.id, name: p.name, email: p.email, emailVerified: true, createdAt: now, updatedAt: now });
+        await tx.insert(account).values({ id: `acc_${p.id}`, accountId: p.id, providerId: "credential", userId: p.id, password: hash, createdAt: now, updatedAt: now });
+        await tx.insert(member).values({ id: `mem_${p.id}`, organizationId: p.org, userId: p.id, role: p.role, createdAt: now });
+        // Everyone also has a personal workshop, as a sign-up would give them.
+        const personal = `org_personal_${p.id.slice(9)}`;
+        await tx.insert(organization).values({ id: personal, name: `${p.name}'s workshop`, slug: `workshop-${p.id.slice(9)}`, kind: "shop" });
+        await tx.insert(member).values({ id: `mem_personal_${p.id}`, organizationId: personal, userId: p.id, role: "owner", createdAt: now });
+      }
     },
   },
 ];

@@ -10,6 +10,7 @@ export AMP_PG_NAME=pg AMP_PG_PORT="${AMP_PG_PORT:-54329}" AMP_PG_DB=ampwright
 export DATABASE_URL="${DATABASE_URL:-postgres://ampwright@127.0.0.1:$AMP_PG_PORT/ampwright}"
 export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"
 export NODE_ENV=production
+export DEMO="${DEMO:-1}"
 SMTP_PORT="${AMP_SMTP_PORT:-1025}"
 MAIL_WEB_PORT="${AMP_MAIL_WEB_PORT:-1080}"
 export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}"
@@ -59,7 +60,12 @@ cat >&2 <<MSG
     - Mail Ampwright sends (sign-up confirmations, password resets) lands in the local inbox at
       http://127.0.0.1:$MAIL_WEB_PORT
     - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Eastfield Technical Institute)
-      with their vehicles.
+      with their vehicles. Sign in at http://127.0.0.1:$PORT/sign-in as any of these, password larkspur-demo-2026:
+        dana@larkspur.example (shop owner)     tobias@larkspur.example (shop lead)
+        priya@larkspur.example (technician)    sam@larkspur.example (viewer, service writer)
+        lena@eastfield.example (class owner)   jonah@eastfield.example (instructor)
+        ines@eastfield.example (student)       theo@eastfield.example (student)
+        ruth@eastfield.example (observer)
 
   Press Ctrl-C to stop the server and the database it started.
 

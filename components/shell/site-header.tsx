@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 import { areas } from "@/lib/areas";
+import { AccountMenu } from "./account-menu";
 import { Logo } from "./logo";
 
 export function SiteHeader() {
@@ -31,6 +32,7 @@ export function SiteHeader() {
             );
           })}
         </nav>
+        <AccountMenu />
       </div>
     </header>
   );
