@@ -2,7 +2,7 @@ import "server-only";
 import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "@/db";
-import { member, organization } from "@/db/schema";
+import { member, organization, user } from "@/db/schema";
 
 export type OrgKind = "shop" | "class";
 
@@ -46,4 +46,47 @@ export async function listMemberships(db: Db, userId: string) {
     .innerJoin(organization, eq(organization.id, member.organizationId))
     .where(eq(member.userId, userId))
     .orderBy(member.createdAt);
+}
+
+export async function getOrganization(db: Db, organizationId: string) {
+  const rows = await db
+    .select({ id: organization.id, name: organization.name, slug: organization.slug, kind: organization.kind, createdAt: organization.createdAt })
+    .from(organization)
+    .where(eq(organization.id, organizationId))
+    .limit(1);
+  return rows[0];
+}
+
+export async function renameOrganization(db: Db, organizationId: string, name: string) {
+  await db.update(organization).set({ name }).where(eq(organization.id, organizationId));
+}
+
+export async function deleteOrganization(db: Db, organizationId: string) {
+  await db.delete(organization).where(eq(organization.id, organizationId));
+}
+
+export async function listMembers(db: Db, organizationId: string) {
+  return db
+    .select({ id: member.id, userId: member.userId, role: member.role, name: user.name, email: user.email, joinedAt: member.createdAt })
+    .from(member)
+    .innerJoin(user, eq(user.id, member.userId))
+    .where(eq(member.organizationId, organizationId))
+    .orderBy(member.createdAt);
+}
+
+export async function findMember(db: Db, organizationId: string, memberId: string) {
+  const rows = await db
+    .select({ id: member.id, userId: member.userId, role: member.role })
+    .from(member)
+    .where(and(eq(member.organizationId, organizationId), eq(member.id, memberId)))
+    .limit(1);
+  return rows[0];
+}
+
+export async function setMemberRole(db: Db, organizationId: string, memberId: string, role: string) {
+  await db.update(member).set({ role }).where(and(eq(member.organizationId, organizationId), eq(member.id, memberId)));
+}
+
+export async function removeMember(db: Db, organizationId: string, memberId: string) {
+  await db.delete(member).where(and(eq(member.organizationId, organizationId), eq(member.id, memberId)));
 }

@@ -16,3 +16,11 @@ export function resetMessage(name: string, url: string): Message {
   const lines = [`Hello ${name},`, "Someone asked to reset the password of your Ampwright account. If it was you, choose a new one with the link below; it works for one hour. If it was not, ignore this message: nothing changes."];
   return { subject: "Reset your Ampwright password", text: `${lines.join("\n\n")}\n\n${url}\n`, html: wrap(lines, { url, label: "Choose a new password" }) };
 }
+
+export function invitationMessage(p: { inviter: string; organization: string; roleLabel: string; url: string; days: number }): Message {
+  const lines = [
+    `${p.inviter} invites you to join ${p.organization} on Ampwright as ${p.roleLabel}.`,
+    `Follow the link to accept; you can sign in or create an account on the way. The invitation expires in ${p.days} days.`,
+  ];
+  return { subject: `Join ${p.organization} on Ampwright`, text: `${lines.join("\n\n")}\n\n${p.url}\n`, html: wrap(lines, { url: p.url, label: "Accept the invitation" }) };
+}
