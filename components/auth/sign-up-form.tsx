@@ -2,7 +2,7 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
-import { useRouter } from "next/navigation";
+import { useRouter, useSearchParams } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormError, primaryButton } from "@/components/ui/field";
@@ -11,11 +11,13 @@ import { PASSWORD_MIN, signUpInput, type SignUpInput } from "@/lib/validators/au
 
 export function SignUpForm() {
   const router = useRouter();
+  const next = useSearchParams().get("next");
+  const callbackURL = next && next.startsWith("/") ? next : "/jobs";
   const [error, setError] = useState<string | null>(null);
   const form = useForm<SignUpInput>({ resolver: zodResolver(signUpInput) });
   const submit = form.handleSubmit(async (values) => {
     setError(null);
-    const { error: e } = await authClient.signUp.email({ ...values, callbackURL: "/jobs" });
+    const { error: e } = await authClient.signUp.email({ ...values, callbackURL });
     if (e) {
       setError(
         e.status === 422 || /exist/i.test(e.message ?? "")

@@ -18,9 +18,9 @@ export function AccountMenu() {
   }
   return (
     <div className="flex items-center gap-3 text-sm">
-      <span className="hidden text-graphite-300 sm:inline" data-testid="header-user">
+      <Link href="/organizations" className="hidden text-graphite-300 hover:text-white sm:inline" data-testid="header-user">
         {data.user.name}
-      </span>
+      </Link>
       <button
         type="button"
         className="rounded-md border border-graphite-700 px-3 py-1.5 font-medium text-white hover:bg-graphite-800"

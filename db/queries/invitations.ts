@@ -52,6 +52,7 @@ export async function findInvitation(db: Db, invitationId: string) {
       role: invitation.role,
       status: invitation.status,
       expiresAt: invitation.expiresAt,
+      expired: sql<boolean>`${invitation.expiresAt} < now()`,
       organizationId: invitation.organizationId,
       organizationName: organization.name,
       kind: organization.kind,

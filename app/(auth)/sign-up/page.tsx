@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Suspense } from "react";
 import { SignUpForm } from "@/components/auth/sign-up-form";
 import { AuthCard } from "@/components/ui/field";
 
@@ -7,7 +8,9 @@ export const metadata: Metadata = { title: "Create an account" };
 export default function Page() {
   return (
     <AuthCard title="Create your Ampwright account">
-      <SignUpForm />
+      <Suspense>
+        <SignUpForm />
+      </Suspense>
     </AuthCard>
   );
 }
