@@ -32,6 +32,8 @@ cleanup() {
   trap - INT TERM EXIT
   stop_group "$SERVER_PID"
   stop_group "$MAILDEV_PID"
+  # The outbox test restarts the catcher, so also stop whatever listens on its port now.
+  pkill -f "maildev --smtp $AMP_SMTP_PORT " 2>/dev/null || true
   bash scripts/db.sh destroy >/dev/null 2>&1 || true
 }
 trap cleanup INT TERM EXIT

@@ -21,3 +21,14 @@ export const mailOutbox = pgTable(
   },
   (t) => [index("mail_outbox_due_idx").on(t.sentAt, t.nextAttemptAt)],
 );
+
+/** Sign-in and sign-up attempts by client address and e-mail, for the abuse limits. */
+export const authAttempts = pgTable(
+  "auth_attempts",
+  {
+    id: serial("id").primaryKey(),
+    key: text("key").notNull(),
+    at: timestamp("at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("auth_attempts_key_at_idx").on(t.key, t.at)],
+);

@@ -11,6 +11,7 @@ import { env } from "@/lib/env";
 import { kickMailWorker, startMailWorker } from "@/lib/mail/sender";
 import { resetMessage, verificationMessage } from "@/lib/mail/templates";
 import { PASSWORD_MIN } from "@/lib/validators/auth";
+import { abuseLimits } from "./abuse";
 
 const e = env();
 startMailWorker();
@@ -52,6 +53,9 @@ export const auth = betterAuth({
     },
   },
   session: { cookieCache: { enabled: true, maxAge: 60 } },
+  // Ampwright's own limits (lib/auth/abuse.ts) replace the built-in address-only limiter.
+  rateLimit: { enabled: false },
+  hooks: { before: abuseLimits },
   advanced: { useSecureCookies: e.APP_URL.startsWith("https://") },
   databaseHooks: {
     user: {

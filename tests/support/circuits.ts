@@ -28,8 +28,10 @@ export function randomLinearCircuit(seed: number, size: number, opts: { currentL
   const r = rng(seed);
   const components: Component[] = [];
   const wires: Wire[] = [];
+  // Terminals joined to the reference through resistance (never only through a current source).
   const terminals: string[] = [];
   const pick = () => terminals[Math.floor(r() * terminals.length)];
+  const later: string[] = [];
   let w = 0;
   const wire = (from: string, to: string) => {
     wires.push({ id: `W${++w}`, from, to, resistanceOhm: 0.0005 + r() * 0.05 } as Wire);
@@ -39,7 +41,9 @@ export function randomLinearCircuit(seed: number, size: number, opts: { currentL
     // Join the new part to what exists so the whole stays connected.
     if (terminals.length) wire(pick(), ts[0]);
     components.push(c);
-    terminals.push(...ts);
+    const currentSource = c.kind === "load" && c.mode === "current";
+    terminals.push(ts[0]);
+    if (ts[1]) (currentSource ? later : terminals).push(ts[1]);
   };
   add({ id: "G0", kind: "ground", reference: true } as Component);
   add({ id: "B0", kind: "battery", openCircuitVoltage: 12 + r(), internalResistance: 0.005 + r() * 0.02 } as Component);
@@ -57,9 +61,10 @@ export function randomLinearCircuit(seed: number, size: number, opts: { currentL
     const ts = TERMINALS[c.kind];
     if (ts.length !== 2) continue;
     let other = pick();
-    while (other === `${c.id}.${ts[1]}`) other = pick();
+    while (other === `${c.id}.${ts[1]}` || other === `${c.id}.${ts[0]}`) other = pick();
     wire(`${c.id}.${ts[1]}`, other);
   }
+  terminals.push(...later);
   for (let i = 0; i < size / 5; i++) wire(pick(), pick());
   return circuit(components, wires.filter((x) => x.from !== x.to));
 }
