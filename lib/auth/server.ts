@@ -5,7 +5,9 @@ import { nextCookies } from "better-auth/next-js";
 import { organization as organizationPlugin } from "better-auth/plugins";
 import { db } from "@/db";
 import { enqueueMail } from "@/db/queries/mail";
+import { deleteSoleOrganizations, sharedOwnedOrganizations } from "@/db/queries/accounts";
 import { createOrganization } from "@/db/queries/organizations";
+import { APIError } from "better-auth/api";
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { kickMailWorker, startMailWorker } from "@/lib/mail/sender";
@@ -50,6 +52,22 @@ export const auth = betterAuth({
       const m = verificationMessage(user.name, url);
       await enqueueMail(db, { to: user.email, kind: "verify-email", ...m });
       kickMailWorker();
+    },
+  },
+  user: {
+    deleteUser: {
+      enabled: true,
+      // What deleting an account does is stated on /privacy: personal organisations and their work go with it;
+      // an organisation others still use must be handed over or deleted first.
+      beforeDelete: async (user) => {
+        const shared = await sharedOwnedOrganizations(db, user.id);
+        if (shared.length) {
+          throw new APIError("BAD_REQUEST", {
+            message: `You own ${shared.join(", ")}, which other people use. Remove them from it or delete it first.`,
+          });
+        }
+        await deleteSoleOrganizations(db, user.id);
+      },
     },
   },
   session: { cookieCache: { enabled: true, maxAge: 60 } },

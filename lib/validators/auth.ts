@@ -15,3 +15,10 @@ export const resetPasswordInput = z
 
 export type SignUpInput = z.infer<typeof signUpInput>;
 export type SignInInput = z.infer<typeof signInInput>;
+export const changePasswordInput = z
+  .object({ currentPassword: z.string().min(1, "enter your current password"), password, confirm: z.string() })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "the two passwords differ" });
+export const deleteAccountInput = z.object({
+  password: z.string().min(1, "enter your password"),
+  confirm: z.literal(true, { error: "tick the box to confirm" }),
+});
