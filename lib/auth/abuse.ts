@@ -2,6 +2,7 @@ import "server-only";
 import { APIError, createAuthMiddleware } from "better-auth/api";
 import { db } from "@/db";
 import { countAttempt } from "@/db/queries/abuse";
+import { forgotPasswordInput, signInInput, signUpInput } from "@/lib/validators/auth";
 
 /**
  * Abuse limits keyed by client address and e-mail, counted in PostgreSQL (so they hold across server processes):
@@ -15,7 +16,22 @@ export const LIMITS: Record<string, { max: number; windowS: number }> = {
   "/send-verification-email": { max: 5, windowS: 600 },
 };
 
+/** The forms' zod schemas, applied on the server too, so both say the same thing about a field. */
+const SCHEMAS: Record<string, { safeParse: (v: unknown) => { success: boolean; error?: { issues: { path: PropertyKey[]; message: string }[] } } }> = {
+  "/sign-up/email": signUpInput,
+  "/sign-in/email": signInInput,
+  "/request-password-reset": forgotPasswordInput,
+};
+
 export const abuseLimits = createAuthMiddleware(async (ctx) => {
+  const schema = SCHEMAS[ctx.path];
+  if (schema) {
+    const parsed = schema.safeParse(ctx.body ?? {});
+    if (!parsed.success) {
+      const what = (parsed.error?.issues ?? []).map((i) => `${i.path.map(String).join(".")}: ${i.message}`).join("; ");
+      throw new APIError("UNPROCESSABLE_ENTITY", { message: `Some fields need fixing: ${what}.` });
+    }
+  }
   const limit = LIMITS[ctx.path];
   if (!limit) return;
   const headers = ctx.request?.headers ?? ctx.headers;
