@@ -30,7 +30,8 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
         // Everyone also has a personal workshop, as a sign-up would give them.
         const personal = `org_personal_${p.id.slice(9)}`;
         await tx.insert(organization).values({ id: personal, name: `${p.name}'s workshop`, slug: `workshop-${p.id.slice(9)}`, kind: "shop" });
-        await tx.insert(member).values({ id: `mem_personal_${p.id}`, organizationId: personal, userId: p.id, role: "owner", createdAt: now });
+        // A moment later than the demo membership, so the demo shop or class is listed (and chosen) first.
+        await tx.insert(member).values({ id: `mem_personal_${p.id}`, organizationId: personal, userId: p.id, role: "owner", createdAt: new Date(now.getTime() + 1000) });
       }
     },
   },
