@@ -387,53 +387,57 @@ function iterate(
   let converged = false;
   let fixedPoint = false;
   let lastDv = 0;
+  // Stamp one element's linearised current g (v_a - v_b) + J into a matrix and right-hand side.
+  const stamp = (e: number, g: number, J: number, A: Float64Array, R: Float64Array) => {
+    const ia = ta[e];
+    const ib = tb[e];
+    const ra = rep[ia];
+    const rb = rep[ib];
+    if (ra === rb) return;
+    const c = g * (off[ia] - off[ib]) + J; // constant part of the current a -> b
+    const xa = index[ra];
+    const xb = index[rb];
+    if (xa >= 0) {
+      A[pos[4 * e]] += g;
+      R[xa] -= c;
+      if (xb >= 0) A[pos[4 * e + 2]] -= g;
+      else R[xa] += g * V[rb];
+    }
+    if (xb >= 0) {
+      A[pos[4 * e + 1]] += g;
+      R[xb] += c;
+      if (xa >= 0) A[pos[4 * e + 3]] -= g;
+      else R[xb] += g * V[ra];
+    }
+  };
+  // The linear parts do not change between Newton steps: stamp them once, and only the rest each step.
+  const baseAx = new Float64Array(pattern.rowIdx.length);
+  const baseRhs = new Float64Array(n);
+  const dynamic: number[] = [];
+  for (let e = 0; e < net.count; e++) {
+    const t = types[e];
+    if (t === RES) stamp(e, eg[e], 0, baseAx, baseRhs);
+    else if (t === NORTON) stamp(e, eg[e], -eg[e] * ev[e], baseAx, baseRhs);
+    else if (t === ISRC) {
+      if (!deadSource[e]) stamp(e, 0, ev[e], baseAx, baseRhs);
+    } else if (t === POWER || (t === ALT && altMode[e] === LIMITED && !deadSource[e])) dynamic.push(e);
+  }
   for (let it = 0; it < options.maxNewtonIterations; it++) {
     iterations++;
-    ax.fill(0);
-    rhs.fill(0);
-    for (let e = 0; e < net.count; e++) {
-      const t = types[e];
-      let g = 0;
-      let J = 0;
-      if (t === RES) g = eg[e];
-      else if (t === NORTON) {
-        g = eg[e];
-        J = -eg[e] * ev[e];
-      } else if (t === ISRC) J = deadSource[e] ? 0 : ev[e];
-      else if (t === ALT) {
+    ax.set(baseAx);
+    rhs.set(baseRhs);
+    for (let k = 0; k < dynamic.length; k++) {
+      const e = dynamic[k];
+      if (types[e] === ALT) {
         // At its limit the rated current leaves the alternator at its out terminal (a): a -> b is negative.
-        if (altMode[e] !== LIMITED || deadSource[e]) continue;
-        J = -eg[e];
-      } else if (t === POWER) {
-        const P = ev[e];
-        const v0 = it === 0 && !warm ? systemVoltage : volts(e);
-        if (v0 < vmin) g = P / (vmin * vmin);
-        else if (fixedPoint) g = P / (v0 * v0);
-        else {
-          g = -P / (v0 * v0);
-          J = (2 * P) / v0;
-        }
-      } else continue;
-      const ia = ta[e];
-      const ib = tb[e];
-      const ra = rep[ia];
-      const rb = rep[ib];
-      if (ra === rb) continue;
-      const c = g * (off[ia] - off[ib]) + J; // constant part of the current a -> b
-      const xa = index[ra];
-      const xb = index[rb];
-      if (xa >= 0) {
-        ax[pos[4 * e]] += g;
-        rhs[xa] -= c;
-        if (xb >= 0) ax[pos[4 * e + 2]] -= g;
-        else rhs[xa] += g * V[rb];
+        stamp(e, 0, -eg[e], ax, rhs);
+        continue;
       }
-      if (xb >= 0) {
-        ax[pos[4 * e + 1]] += g;
-        rhs[xb] += c;
-        if (xa >= 0) ax[pos[4 * e + 3]] -= g;
-        else rhs[xb] += g * V[ra];
-      }
+      const P = ev[e];
+      const v0 = it === 0 && !warm ? systemVoltage : volts(e);
+      if (v0 < vmin) stamp(e, P / (vmin * vmin), 0, ax, rhs);
+      else if (fixedPoint) stamp(e, P / (v0 * v0), 0, ax, rhs);
+      else stamp(e, -P / (v0 * v0), (2 * P) / v0, ax, rhs);
     }
     const bad = numeric(pattern, ax, sym);
     if (bad >= 0) {
