@@ -8,7 +8,10 @@ const envSchema = z.object({
   SMTP_URL: z.string().default("smtp://127.0.0.1:1025"),
   MAIL_FROM: z.string().default("Ampwright <no-reply@ampwright.invalid>"),
   /** Signs sessions; required in production (npm start generates one for local runs). */
-  BETTER_AUTH_SECRET: z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters").optional(),
+  BETTER_AUTH_SECRET: z.preprocess(
+    (v) => (v === "" ? undefined : v), // an empty line copied from .env.example means "not set"
+    z.string().min(32, "BETTER_AUTH_SECRET must be at least 32 characters").optional(),
+  ),
 });
 
 export type Env = z.infer<typeof envSchema>;
