@@ -1,0 +1,47 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("the sizing page", () => {
+  it("sizes a 20 A light bar as the hand arithmetic does, and follows the typed units", async () => {
+    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    const watch = watchPage(page);
+    await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
+    // 20 A, 6 m one way, critical 3 % of 12 V = 0.36 V, cabin 30 C. Copper per metre at 30 C, x 1.02 stranding:
+    // 8 AWG 0.6282 ohm/kft (NBS) -> 2.185 mOhm/m -> 20 A x 12 m = 0.524 V (too much); 6 AWG 1.374 mOhm/m -> 0.330 V.
+    // Fuse: 125 % of 20 A = 25 A blade (ISO 8820 series).
+    await expect(page.getByTestId("size-recommended").textContent()).resolves.toBe("6 AWG");
+    await expect(page.getByTestId("size-protection").textContent()).resolves.toBe("25 A blade fuse");
+    await expect(page.getByTestId("size-reason").textContent()).resolves.toMatch(/voltage drop limit of 0\.36 V decided it/);
+    await screenshot(page, "sizing-1440");
+    // 3 m: 8 AWG drops 20 x 6 x 2.185 mOhm = 0.262 V (fits), 10 AWG 20 x 6 x 3.474 mOhm = 0.417 V (does not).
+    await page.getByTestId("size-length").fill("3 m");
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "8 AWG");
+    // 18 ft = 5.486 m: 6 AWG drops 20 x 10.97 x 1.374 mOhm = 0.301 V, 8 AWG 0.479 V.
+    await page.getByTestId("size-length").fill("18 ft");
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "6 AWG");
+    // A wrong unit says what to fix and keeps the other values.
+    await page.getByTestId("size-length").fill("3 V");
+    await expect(page.getByTestId("size-error-length").textContent()).resolves.toMatch(/not a length/);
+    await expect(page.getByTestId("size-current").inputValue()).resolves.toBe("20 A");
+    expect(watch.problems).toEqual([]);
+    await page.close();
+  });
+
+  it("fits a phone without sideways scrolling", async () => {
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await screenshot(page, "sizing-390");
+    await page.close();
+  });
+});
