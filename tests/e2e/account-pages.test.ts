@@ -1,19 +1,12 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, demoClass, demoShop } from "@/db/demo";
-import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { baseUrl, sharedBrowser, screenshot, watchPage } from "../support/browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("account pages for a demo person", () => {
   it("shows the shop owner's organisations, people with role labels, and the account page", async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 900 } });
     const watch = watchPage(page);
     await page.goto(`${baseUrl}/sign-in?next=/organizations`, { waitUntil: "networkidle" });
     await page.getByTestId("sign-in-email").fill("dana@larkspur.example");
@@ -38,7 +31,7 @@ describe("account pages for a demo person", () => {
   });
 
   it("sends a signed-out visitor to sign in and back", async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await page.goto(`${baseUrl}/account`, { waitUntil: "networkidle" });
     expect(page.url()).toMatch(/\/sign-in\?next=%2Faccount$/);
     await page.close();

@@ -1,20 +1,13 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { baseUrl, sharedBrowser, screenshot, watchPage } from "../support/browser";
 import { firstLink, waitForMail } from "../support/maildev";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("accounts in Chromium", () => {
   it("signs up, confirms the address from the mailed link, and is signed in", async () => {
     const email = `newtech-${Date.now().toString(36)}@larkspur.test`;
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     const watch = watchPage(page);
     await page.goto(`${baseUrl}/sign-up`, { waitUntil: "networkidle" });
@@ -37,7 +30,7 @@ describe("accounts in Chromium", () => {
   });
 
   it("signs in a demo technician, shows a clear error for a wrong password, and signs out", async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/sign-in`, { waitUntil: "networkidle" });
     await page.getByTestId("sign-in-email").fill("priya@larkspur.example");

@@ -1,16 +1,10 @@
-import type { Browser, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Page } from "playwright-core";
+import { describe, expect, it } from "vitest";
 import { demoShop } from "@/db/demo";
-import { baseUrl, launchBrowser, screenshot } from "../support/browser";
+import { baseUrl, sharedBrowser, screenshot } from "../support/browser";
 import { firstLink, waitForMail } from "../support/maildev";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 async function signUpAndConfirm(page: Page, name: string, email: string, from = "/sign-up") {
   await page.goto(`${baseUrl}${from}`, { waitUntil: "networkidle" });
@@ -29,7 +23,7 @@ describe("an instructor invites a student into a class", () => {
     const instructorEmail = `instructor-${tag}@eastfield.test`;
     const studentEmail = `student-${tag}@eastfield.test`;
 
-    const teacher = await (await browser.newContext({ viewport: { width: 1440, height: 900 } })).newPage();
+    const teacher = await (await browser().newContext({ viewport: { width: 1440, height: 900 } })).newPage();
     await signUpAndConfirm(teacher, "Mira Castellan", instructorEmail);
     await teacher.goto(`${baseUrl}/organizations`, { waitUntil: "networkidle" });
     await teacher.getByTestId("org-name").fill("Auto Electrical 110, spring");
@@ -48,7 +42,7 @@ describe("an instructor invites a student into a class", () => {
     expect(invite.text).toMatch(/Mira Castellan invites you to join .* as Student/);
     const link = new URL(firstLink(invite.text));
 
-    const student = await (await browser.newContext({ viewport: { width: 390, height: 844 } })).newPage();
+    const student = await (await browser().newContext({ viewport: { width: 390, height: 844 } })).newPage();
     await student.goto(link.toString(), { waitUntil: "networkidle" });
     await expect(student.getByTestId("invitation-summary").textContent()).resolves.toContain("as Student");
     await signUpAndConfirm(student, "Noor Brandt", studentEmail, `/sign-up?next=${encodeURIComponent(link.pathname)}`);

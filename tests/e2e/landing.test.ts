@@ -1,20 +1,12 @@
 import fs from "node:fs";
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { baseUrl, screenshot, sharedBrowser, watchPage } from "../support/browser";
 
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("landing page in Chromium", () => {
   it("says what Ampwright is for, links every area, and loads cleanly on a shop monitor", async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 900 } });
     const watch = watchPage(page);
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     await expect(page.getByTestId("landing-title").textContent()).resolves.toContain("Prove where the fault is");
@@ -32,7 +24,7 @@ describe("landing page in Chromium", () => {
   });
 
   it("fits a phone held at the vehicle without sideways scrolling", async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2 });
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 }, deviceScaleFactor: 2 });
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
@@ -41,7 +33,7 @@ describe("landing page in Chromium", () => {
   });
 
   it("opens an area from the navigation and says plainly what it will hold", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 800 } });
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Lessons" }).click();
     await page.waitForURL(/\/lessons$/);
@@ -51,7 +43,7 @@ describe("landing page in Chromium", () => {
   });
 
   it("answers an unknown address with Ampwright's 404 page", async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     const res = await page.goto(`${baseUrl}/does-not-exist`);
     expect(res?.status()).toBe(404);
     await expect(page.getByTestId("not-found").textContent()).resolves.toContain("nothing at this address");

@@ -1,14 +1,7 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { baseUrl, sharedBrowser, screenshot, watchPage } from "../support/browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 // 2/0 AWG copper at 25 C: ASTM B258 diameter 0.005 in x 92^(37/39), IEC 60028 resistivity 1.7241e-8 ohm m,
 // x 1.02 stranding, x (1 + 0.00393 x 5) for temperature.
@@ -17,7 +10,7 @@ const rPerM = (1.7241e-8 / ((Math.PI / 4) * d * d)) * 1.02 * (1 + 0.00393 * 5);
 
 describe("the start page's cranking check", () => {
   it("computes the drops a technician should expect, worked by hand", async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 1000 } });
     const watch = watchPage(page);
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     await page.getByTestId("qc-submit").click();
@@ -41,7 +34,7 @@ describe("the start page's cranking check", () => {
   });
 
   it("says what to fix for a value out of range, at a phone's width", async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     await page.goto(baseUrl, { waitUntil: "networkidle" });
     await page.getByTestId("qc-restingVolts").fill("14.1");
     await page.getByTestId("qc-submit").click();

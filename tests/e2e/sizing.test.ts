@@ -1,18 +1,11 @@
-import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, screenshot, watchPage } from "../support/browser";
+import { describe, expect, it } from "vitest";
+import { baseUrl, sharedBrowser, screenshot, watchPage } from "../support/browser";
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe("the sizing page", () => {
   it("sizes a 20 A light bar as the hand arithmetic does, and follows the typed units", async () => {
-    const page = await browser.newPage({ viewport: { width: 1440, height: 1000 } });
+    const page = await browser().newPage({ viewport: { width: 1440, height: 1000 } });
     const watch = watchPage(page);
     await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
     // 20 A, 6 m one way, critical 3 % of 12 V = 0.36 V, cabin 30 C. Copper per metre at 30 C, x 1.02 stranding:
@@ -37,7 +30,7 @@ describe("the sizing page", () => {
   });
 
   it("fits a phone without sideways scrolling", async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);

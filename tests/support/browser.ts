@@ -1,6 +1,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type Page } from "playwright-core";
+import { afterAll, beforeAll } from "vitest";
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
 export const artifactsDir = path.resolve(process.env.E2E_ARTIFACTS ?? "test-artifacts");
@@ -40,4 +41,19 @@ export function watchPage(page: Page): { problems: string[] } {
     if (res.status() >= 400 && !res.url().includes("/does-not-exist")) problems.push(`${res.status()} ${res.url()}`);
   });
   return { problems };
+}
+
+/** One Chromium for a test file: launched before its tests, closed after them. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => {
+    if (!browser) throw new Error("the browser is not running yet");
+    return browser;
+  };
 }
