@@ -11,8 +11,8 @@ export const demoShop = {
 
 export const demoClass = {
   id: "org_demo_class",
-  name: "Eastfield Technical Institute, Auto Electrical 210",
-  slug: "eastfield-ae210",
+  name: "Fernmoor Technical Institute, Auto Electrical 210",
+  slug: "fernmoor-ae210",
   kind: "class" as const,
 };
 
@@ -67,9 +67,9 @@ export const demoPeople = [
   { id: "usr_demo_lead", name: "Tobias Venn", email: "tobias@larkspur.example", org: demoShop.id, role: "lead" },
   { id: "usr_demo_tech", name: "Priya Halvorsen", email: "priya@larkspur.example", org: demoShop.id, role: "technician" },
   { id: "usr_demo_writer", name: "Sam Achterberg", email: "sam@larkspur.example", org: demoShop.id, role: "viewer" },
-  { id: "usr_demo_instructor", name: "Lena Moravec", email: "lena@eastfield.example", org: demoClass.id, role: "owner" },
-  { id: "usr_demo_assistant", name: "Jonah Pell", email: "jonah@eastfield.example", org: demoClass.id, role: "lead" },
-  { id: "usr_demo_student1", name: "Ines Karlsen", email: "ines@eastfield.example", org: demoClass.id, role: "student" },
-  { id: "usr_demo_student2", name: "Theo Marsh", email: "theo@eastfield.example", org: demoClass.id, role: "student" },
-  { id: "usr_demo_observer", name: "Ruth Osei", email: "ruth@eastfield.example", org: demoClass.id, role: "viewer" },
+  { id: "usr_demo_instructor", name: "Lena Moravec", email: "lena@fernmoor.example", org: demoClass.id, role: "owner" },
+  { id: "usr_demo_assistant", name: "Jonah Pell", email: "jonah@fernmoor.example", org: demoClass.id, role: "lead" },
+  { id: "usr_demo_student1", name: "Ines Karlsen", email: "ines@fernmoor.example", org: demoClass.id, role: "student" },
+  { id: "usr_demo_student2", name: "Theo Marsh", email: "theo@fernmoor.example", org: demoClass.id, role: "student" },
+  { id: "usr_demo_observer", name: "Ruth Osei", email: "ruth@fernmoor.example", org: demoClass.id, role: "viewer" },
 ] as const;

@@ -59,13 +59,13 @@ cat >&2 <<MSG
     - Check http://127.0.0.1:$PORT/api/health: it says whether the database is up.
     - Mail Ampwright sends (sign-up confirmations, password resets) lands in the local inbox at
       http://127.0.0.1:$MAIL_WEB_PORT
-    - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Eastfield Technical Institute)
+    - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Fernmoor Technical Institute)
       with their vehicles. Sign in at http://127.0.0.1:$PORT/sign-in as any of these, password larkspur-demo-2026:
         dana@larkspur.example (shop owner)     tobias@larkspur.example (shop lead)
         priya@larkspur.example (technician)    sam@larkspur.example (viewer, service writer)
-        lena@eastfield.example (class owner)   jonah@eastfield.example (instructor)
-        ines@eastfield.example (student)       theo@eastfield.example (student)
-        ruth@eastfield.example (observer)
+        lena@fernmoor.example (class owner)    jonah@fernmoor.example (instructor)
+        ines@fernmoor.example (student)        theo@fernmoor.example (student)
+        ruth@fernmoor.example (observer)
 
   Press Ctrl-C to stop the server and the database it started.
 

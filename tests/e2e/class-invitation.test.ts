@@ -20,8 +20,8 @@ async function signUpAndConfirm(page: Page, name: string, email: string, from = 
 describe("an instructor invites a student into a class", () => {
   it("signs up, creates a class, invites by e-mail; the student accepts and sees the class", async () => {
     const tag = Date.now().toString(36);
-    const instructorEmail = `instructor-${tag}@eastfield.test`;
-    const studentEmail = `student-${tag}@eastfield.test`;
+    const instructorEmail = `instructor-${tag}@fernmoor.test`;
+    const studentEmail = `student-${tag}@fernmoor.test`;
 
     const teacher = await (await browser().newContext({ viewport: { width: 1440, height: 900 } })).newPage();
     await signUpAndConfirm(teacher, "Mira Castellan", instructorEmail);

@@ -72,7 +72,7 @@ describe("the permission table for organisation routes", () => {
   }
 
   it("lists each person's organisations with the role label of its kind", async () => {
-    const res = await callRoute(orgs.GET as Handler, { cookie: cookies["jonah@eastfield.example"] });
+    const res = await callRoute(orgs.GET as Handler, { cookie: cookies["jonah@fernmoor.example"] });
     const body = await res.json();
     const cls = body.organizations.find((o: { organizationId: string }) => o.organizationId === demoClass.id);
     expect(cls).toMatchObject({ kind: "class", role: "lead", roleLabel: "Instructor" });
@@ -80,11 +80,11 @@ describe("the permission table for organisation routes", () => {
   });
 
   it("creates a class whose creator is its owner, and only the owner deletes it", async () => {
-    const created = await callRoute(orgs.POST as Handler, { json: { name: "Evening class, batteries", kind: "class" }, cookie: cookies["jonah@eastfield.example"] });
+    const created = await callRoute(orgs.POST as Handler, { json: { name: "Evening class, batteries", kind: "class" }, cookie: cookies["jonah@fernmoor.example"] });
     expect(created.status).toBe(201);
     const id = (await created.json()).organization.id;
-    expect((await callRoute(org.DELETE as Handler, { method: "DELETE", params: { orgId: id }, cookie: cookies["lena@eastfield.example"] })).status).toBe(404);
-    expect((await callRoute(org.DELETE as Handler, { method: "DELETE", params: { orgId: id }, cookie: cookies["jonah@eastfield.example"] })).status).toBe(204);
+    expect((await callRoute(org.DELETE as Handler, { method: "DELETE", params: { orgId: id }, cookie: cookies["lena@fernmoor.example"] })).status).toBe(404);
+    expect((await callRoute(org.DELETE as Handler, { method: "DELETE", params: { orgId: id }, cookie: cookies["jonah@fernmoor.example"] })).status).toBe(204);
   });
 
   it("refuses a role the kind of organisation does not offer, and protects the owner", async () => {
