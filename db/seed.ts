@@ -1,7 +1,8 @@
 import { sql } from "drizzle-orm";
 import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
-import { account, member, organization, seedRuns, user, vehicles } from "./schema";
+import { demoJobs } from "./demo-work";
+import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -32,6 +33,47 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
         await tx.insert(organization).values({ id: personal, name: `${p.name}'s workshop`, slug: `workshop-${p.id.slice(9)}`, kind: "shop" });
         // A moment later than the demo membership, so the demo shop or class is listed (and chosen) first.
         await tx.insert(member).values({ id: `mem_personal_${p.id}`, organizationId: personal, userId: p.id, role: "owner", createdAt: new Date(now.getTime() + 1000) });
+      }
+    },
+  },
+  {
+    name: "demo-jobs-v1",
+    load: async (tx) => {
+      // The jobs belong to the demo people, who exist only where their part loaded.
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      const now = Date.now();
+      const ago = (minutes: number) => new Date(now - minutes * 60_000);
+      for (const j of demoJobs) {
+        const at = ago(j.daysAgo * 1440);
+        const { circuits: jobCircuits, daysAgo: _d, ...job } = j;
+        void _d;
+        await tx.insert(jobs).values({ ...job, systemVoltage: 12, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
+        await tx.insert(auditEvents).values({ organizationId: j.organizationId, actorId: j.ownerId, action: "job.create", entityType: "job", entityId: j.id, detail: { title: j.title }, createdAt: at });
+        for (const c of jobCircuits) {
+          const versions = [...(c.earlier ?? []), { document: c.document, message: c.earlier ? "Bracket resistance set from the readings" : "Created" }];
+          await tx.insert(circuits).values({ id: c.id, jobId: j.id, name: c.document.name, document: c.document, version: versions.length, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
+          await tx.insert(circuitRevisions).values(
+            versions.map((v, i) => ({ circuitId: c.id, version: i + 1, name: v.document.name, document: v.document, message: v.message, createdBy: j.ownerId, createdAt: new Date(at.getTime() + i * 60_000) })),
+          );
+          if (c.readings.length) {
+            await tx.insert(readings).values(
+              c.readings.map((r, i) => ({
+                id: `rdg_${c.id.slice(4)}_${i + 1}`,
+                circuitId: c.id,
+                stateId: r.stateId,
+                positive: r.positive,
+                negative: r.negative,
+                value: r.value,
+                unit: r.unit,
+                currentA: r.currentA ?? null,
+                note: r.note,
+                takenBy: r.by,
+                takenAt: ago(r.minutesAgo),
+                updatedAt: ago(r.minutesAgo),
+              })),
+            );
+          }
+        }
       }
     },
   },

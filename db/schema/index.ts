@@ -3,3 +3,4 @@ export * from "./organizations";
 export * from "./vehicles";
 export * from "./auth";
 export * from "./mail";
+export * from "./work";

@@ -7,7 +7,7 @@ import { can, type Permission } from "@/lib/auth/permissions";
 import { ApiError } from "./errors";
 import { route } from "./route";
 
-export type SignedIn = { id: string; name: string; email: string };
+export type SignedIn = { id: string; name: string; email: string; activeOrganizationId?: string | null };
 export type Membership = { organizationId: string; role: string; kind: string; name: string };
 
 type Ctx<TBody> = { req: Request; body: TBody; params: Record<string, string>; user: SignedIn };
@@ -15,7 +15,9 @@ type OrgCtx<TBody> = Ctx<TBody> & { membership: Membership };
 
 export async function currentUser(req: Request): Promise<SignedIn | undefined> {
   const session = await auth.api.getSession({ headers: req.headers });
-  return session ? { id: session.user.id, name: session.user.name, email: session.user.email } : undefined;
+  return session
+    ? { id: session.user.id, name: session.user.name, email: session.user.email, activeOrganizationId: session.session.activeOrganizationId }
+    : undefined;
 }
 
 /** A route for any signed-in user: 401 without a session. */

@@ -47,6 +47,14 @@ export function route<S extends z.ZodType | undefined = undefined>(
   };
 }
 
+/** The URL's query string parsed with a zod schema; 422 with the failing parameters otherwise. */
+export function parseQuery<S extends z.ZodType>(req: Request, schema: S): z.infer<S> {
+  const params = Object.fromEntries(new URL(req.url).searchParams);
+  const parsed = schema.safeParse(params);
+  if (!parsed.success) throw new ApiError(422, "invalid-query", "Some query parameters need fixing; see issues.", zodIssues(parsed.error));
+  return parsed.data;
+}
+
 async function readBody(req: Request, maxBytes: number): Promise<string> {
   const declared = Number(req.headers.get("content-length") ?? "0");
   const tooLarge = () =>

@@ -1,2 +1,3 @@
 export * from "./load";
 export * from "./schema";
+export * from "./terminals";

@@ -1,0 +1,133 @@
+import { z } from "zod";
+import { circuitSchemaV1 } from "@/lib/circuit";
+import { cableSizeRequest } from "@/lib/validators/cable-size";
+import { solveRequest } from "@/lib/validators/solve";
+import {
+  circuitDocumentField,
+  createCircuitInput,
+  createJobInput,
+  createReadingInput,
+  importInput,
+  listJobsQuery,
+  replaceCircuitInput,
+  restoreCircuitInput,
+  updateJobInput,
+  updateReadingInput,
+} from "@/lib/validators/work";
+
+type Op = {
+  method: "get" | "post" | "put" | "patch" | "delete";
+  path: string;
+  summary: string;
+  /** Who may call it, in words (the permission table decides). */
+  access: string;
+  body?: z.ZodType;
+  query?: z.ZodObject;
+  responses: Record<string, string>;
+  ifMatch?: boolean;
+};
+
+const common = { "401": "Not signed in", "404": "No such record, or not yours to see", "422": "A field needs fixing; see error.issues" };
+
+/** Every documented route: the API reference page and openapi.json are both drawn from this list. */
+export const OPERATIONS: Op[] = [
+  { method: "get", path: "/api/v1/jobs", summary: "List jobs of a shop or class", access: "members; own-work roles see their own jobs", query: listJobsQuery, responses: { "200": "A page of jobs and nextCursor", ...common } },
+  { method: "post", path: "/api/v1/jobs", summary: "Open a job", access: "owner, lead, technician, student", body: createJobInput, responses: { "201": "The job", "403": "Role may not open jobs", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}", summary: "A job with its circuits and reading counts", access: "who may read the job", responses: { "200": "The job and circuits", ...common } },
+  { method: "patch", path: "/api/v1/jobs/{jobId}", summary: "Change a job's title, vehicle, complaint or status", access: "who may edit the job", body: updateJobInput, responses: { "200": "The job", "403": "Read-only role", ...common } },
+  { method: "delete", path: "/api/v1/jobs/{jobId}", summary: "Delete a job with everything in it", access: "who may edit the job", responses: { "204": "Deleted", "403": "Read-only role", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}/circuits", summary: "A job's circuits", access: "who may read the job", responses: { "200": "Circuits", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/circuits", summary: "Add a circuit (empty by name, or from a document)", access: "who may edit the job", body: createCircuitInput, responses: { "201": "The circuit at version 1 (ETag \"1\")", "413": "Body over 4 MB", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/import", summary: "Add a circuit from an export file or a bare document", access: "who may edit the job", body: importInput, responses: { "201": "The circuit and the number of readings imported", "413": "Body over 4 MB", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}", summary: "A circuit document and its version", access: "who may read the job", responses: { "200": "The circuit; ETag is its version", ...common } },
+  {
+    method: "put",
+    path: "/api/v1/circuits/{circuitId}",
+    summary: "Save a new version of a circuit",
+    access: "who may edit the job",
+    body: replaceCircuitInput,
+    ifMatch: true,
+    responses: { "200": "The new version (ETag)", "412": "Someone saved since: error plus current { version, document }", "428": "If-Match missing", "413": "Body over 4 MB", ...common },
+  },
+  { method: "delete", path: "/api/v1/circuits/{circuitId}", summary: "Delete a circuit with its history and readings", access: "who may edit the job", responses: { "204": "Deleted", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/revisions", summary: "Every saved version, newest first", access: "who may read the job", responses: { "200": "Revisions", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/revisions/{version}", summary: "One saved version's document", access: "who may read the job", responses: { "200": "The revision", ...common } },
+  { method: "post", path: "/api/v1/circuits/{circuitId}/restore", summary: "Save an earlier version as the newest", access: "who may edit the job", body: restoreCircuitInput, responses: { "200": "The new version", "412": "Someone saved meanwhile (when If-Match is sent)", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/readings", summary: "Meter readings on a circuit", access: "who may read the job", responses: { "200": "Readings", ...common } },
+  { method: "post", path: "/api/v1/circuits/{circuitId}/readings", summary: "Record a reading between two terminals", access: "who may edit the job", body: createReadingInput, responses: { "201": "The reading", ...common } },
+  { method: "patch", path: "/api/v1/readings/{readingId}", summary: "Correct a reading", access: "who may edit the job", body: updateReadingInput, responses: { "200": "The reading", ...common } },
+  { method: "delete", path: "/api/v1/readings/{readingId}", summary: "Remove a reading", access: "who may edit the job", responses: { "204": "Deleted", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/export", summary: "Download the document with its readings as one JSON file", access: "who may read the job", responses: { "200": "The export file", ...common } },
+  { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
+  { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },
+];
+
+function schemaOf(s: z.ZodType) {
+  return z.toJSONSchema(s, {
+    io: "input",
+    unrepresentable: "any",
+    target: "openapi-3.0",
+    override: (ctx) => {
+      // The document field is read by lib/circuit (with migration); describe it by the current version's schema.
+      if (ctx.zodSchema === circuitDocumentField) {
+        for (const k of Object.keys(ctx.jsonSchema)) delete (ctx.jsonSchema as Record<string, unknown>)[k];
+        Object.assign(ctx.jsonSchema, { $ref: "#/components/schemas/CircuitDocument" });
+      }
+    },
+  });
+}
+
+/** The OpenAPI 3.0 document of API v1, generated from the zod schemas the handlers parse with. */
+export function openApiDocument() {
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const op of OPERATIONS) {
+    const params = [...op.path.matchAll(/\{(\w+)\}/g)].map((m) => ({ name: m[1], in: "path", required: true, schema: { type: "string" } }));
+    if (op.query) {
+      const q = schemaOf(op.query) as { properties?: Record<string, unknown>; required?: string[] };
+      for (const [name, schema] of Object.entries(q.properties ?? {})) params.push({ name, in: "query", required: q.required?.includes(name) ?? false, schema: schema as { type: string } });
+    }
+    if (op.ifMatch) params.push({ name: "If-Match", in: "header", required: true, schema: { type: "string" } });
+    paths[op.path] ??= {};
+    paths[op.path][op.method] = {
+      summary: op.summary,
+      description: `Who may call it: ${op.access}.`,
+      ...(params.length ? { parameters: params } : {}),
+      ...(op.body ? { requestBody: { required: true, content: { "application/json": { schema: schemaOf(op.body) } } } } : {}),
+      responses: Object.fromEntries(
+        Object.entries(op.responses).map(([code, description]) => [
+          code,
+          { description, ...(Number(code) >= 400 ? { content: { "application/json": { schema: { $ref: "#/components/schemas/Error" } } } } : {}) },
+        ]),
+      ),
+    };
+  }
+  return {
+    openapi: "3.0.3",
+    info: {
+      title: "Ampwright API",
+      version: "1",
+      description: "Jobs, circuits, revisions and readings of a shop or class; the solver and cable sizing. Sign in with the session cookie. SI units inside.",
+    },
+    paths,
+    components: {
+      schemas: {
+        CircuitDocument: schemaOf(circuitSchemaV1),
+        Error: {
+          type: "object",
+          required: ["error"],
+          properties: {
+            error: {
+              type: "object",
+              required: ["code", "message"],
+              properties: {
+                code: { type: "string" },
+                message: { type: "string" },
+                issues: { type: "array", items: { type: "object", properties: { path: { type: "string" }, message: { type: "string" } } } },
+              },
+            },
+          },
+        },
+      },
+    },
+  };
+}

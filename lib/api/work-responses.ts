@@ -1,0 +1,35 @@
+import "server-only";
+import { ApiError } from "./errors";
+
+/** A strong entity tag of a circuit version, as RFC 9110 writes it: "7". */
+export const etagOf = (version: number) => `"${version}"`;
+
+/**
+ * The version an If-Match header asks for. 428 when it is missing (a save must say which version it edits),
+ * 400 when it is not one of our tags.
+ */
+export function expectedVersion(req: Request): number {
+  const header = req.headers.get("if-match");
+  if (!header) {
+    throw new ApiError(428, "version-required", 'Send If-Match with the version you edited (the ETag of your last GET, like "3"), so nobody\'s changes are overwritten.');
+  }
+  const m = /^\s*"(\d{1,9})"\s*$/.exec(header);
+  if (!m) throw new ApiError(400, "bad-if-match", `If-Match must be one version tag such as "3"; got ${header.slice(0, 40)}.`);
+  return Number(m[1]);
+}
+
+/** Cursor of a list page: an opaque token holding the last row's sort value and id. */
+export function encodeCursor(after: [string, string]): string {
+  return Buffer.from(JSON.stringify(after)).toString("base64url");
+}
+
+export function decodeCursor(cursor: string | undefined): [string, string] | undefined {
+  if (!cursor) return undefined;
+  try {
+    const v = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as unknown;
+    if (Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === "string")) return v as [string, string];
+  } catch {
+    // fall through to the error below
+  }
+  throw new ApiError(422, "invalid-query", "The cursor is not one this list gave out; start again from the first page.", [{ path: "cursor", message: "unknown cursor" }]);
+}
