@@ -5,6 +5,17 @@ import * as members from "@/app/api/v1/organizations/[orgId]/members/route";
 import * as member from "@/app/api/v1/organizations/[orgId]/members/[memberId]/route";
 import * as org from "@/app/api/v1/organizations/[orgId]/route";
 import * as orgs from "@/app/api/v1/organizations/route";
+import * as circuitPut from "@/app/api/v1/circuits/[circuitId]/route";
+import * as exportRoute from "@/app/api/v1/circuits/[circuitId]/export/route";
+import * as readingsRoute from "@/app/api/v1/circuits/[circuitId]/readings/route";
+import * as restoreRoute from "@/app/api/v1/circuits/[circuitId]/restore/route";
+import * as revisionRoute from "@/app/api/v1/circuits/[circuitId]/revisions/[version]/route";
+import * as revisionsRoute from "@/app/api/v1/circuits/[circuitId]/revisions/route";
+import * as jobCircuits from "@/app/api/v1/jobs/[jobId]/circuits/route";
+import * as importRoute from "@/app/api/v1/jobs/[jobId]/import/route";
+import * as jobRoute from "@/app/api/v1/jobs/[jobId]/route";
+import * as jobsRoute from "@/app/api/v1/jobs/route";
+import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
 import { callRoute, signInCookie } from "../support/sessions";
@@ -96,5 +107,94 @@ describe("the permission table for organisation routes", () => {
     const invalid = await callRoute(orgs.POST as Handler, { json: { name: "x", kind: "garage" }, cookie: shopLead });
     expect(invalid.status).toBe(422);
     expect((await invalid.json()).error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["kind", "name"]);
+  });
+});
+
+describe("the permission table for work routes (jobs, circuits, revisions, readings)", () => {
+  // Each row runs against a job owned by one person: roles that see all work may read it, roles that see only their
+  // own work get 404 on another's, read-only roles get 403 on a change; outsiders 404; signed out 401.
+  type Fx = { jobId: string; circuitId: string; readingId: string };
+  type WorkRow = { name: string; need: "read" | "edit"; ok: number; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
+  const R = (f: unknown) => f as Handler;
+  const doc = { schema: "ampwright.circuit/1", name: "Perm check", systemVoltage: 12, components: [{ id: "B1", kind: "battery", openCircuitVoltage: 12.6, internalResistance: 0.01 }], wires: [] };
+
+  async function fixture(ownerCookie: string, orgId: string): Promise<Fx> {
+    const job = await callRoute(R(jobsRoute.POST), { json: { organizationId: orgId, title: "Permission fixture" }, cookie: ownerCookie });
+    expect(job.status).toBe(201);
+    const jobId = (await job.json()).job.id;
+    const c = await callRoute(R(jobCircuits.POST), { json: { document: doc }, params: { jobId }, cookie: ownerCookie });
+    const circuitId = (await c.json()).circuit.id;
+    const r = await callRoute(R(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 12.6 }, params: { circuitId }, cookie: ownerCookie });
+    return { jobId, circuitId, readingId: (await r.json()).reading.id };
+  }
+  const putDoc = async (cookie: string | undefined, circuitId: string) => {
+    const req = new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/x`, {
+      method: "PUT",
+      headers: { "content-type": "application/json", "if-match": '"1"', ...(cookie ? { cookie } : {}) },
+      body: JSON.stringify({ document: { ...doc, name: "Perm check, saved" } }),
+    });
+    return (circuitPut.PUT as unknown as Handler)(req, { params: Promise.resolve({ circuitId }) });
+  };
+
+  const workRows: WorkRow[] = [
+    { name: "GET job", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(jobRoute.GET), { params: { jobId: fx.jobId }, cookie }) },
+    { name: "GET job circuits", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(jobCircuits.GET), { params: { jobId: fx.jobId }, cookie }) },
+    { name: "GET circuit", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(circuitPut.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET revisions", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(revisionsRoute.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET revision 1", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(revisionRoute.GET), { params: { circuitId: fx.circuitId, version: "1" }, cookie }) },
+    { name: "GET readings", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(readingsRoute.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET export", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(exportRoute.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "PATCH job", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(jobRoute.PATCH), { method: "PATCH", json: { status: "diagnosed" }, params: { jobId: fx.jobId }, cookie }) },
+    { name: "DELETE job", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(jobRoute.DELETE), { method: "DELETE", params: { jobId: fx.jobId }, cookie }) },
+    { name: "POST circuit", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(jobCircuits.POST), { json: { name: "Another" }, params: { jobId: fx.jobId }, cookie }) },
+    { name: "POST import", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(importRoute.POST), { json: { document: doc }, params: { jobId: fx.jobId }, cookie }) },
+    { name: "PUT circuit", need: "edit", ok: 200, call: (cookie, fx) => putDoc(cookie, fx.circuitId) },
+    { name: "DELETE circuit", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(circuitPut.DELETE), { method: "DELETE", params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "POST restore", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(restoreRoute.POST), { json: { version: 1 }, params: { circuitId: fx.circuitId }, cookie }) },
+    {
+      name: "POST reading",
+      need: "edit",
+      ok: 201,
+      call: (cookie, fx) => callRoute(R(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 12.5 }, params: { circuitId: fx.circuitId }, cookie }),
+    },
+    { name: "PATCH reading", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(readingRoute.PATCH), { method: "PATCH", json: { note: "checked" }, params: { readingId: fx.readingId }, cookie }) },
+    { name: "DELETE reading", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(readingRoute.DELETE), { method: "DELETE", params: { readingId: fx.readingId }, cookie }) },
+  ];
+
+  const cases = [
+    { org: demoShop.id, ownerEmail: "priya@larkspur.example", outsider: "ines@fernmoor.example" },
+    { org: demoClass.id, ownerEmail: "ines@fernmoor.example", outsider: "priya@larkspur.example" },
+  ];
+  for (const c of cases) {
+    for (const row of workRows) {
+      it(`${row.name} on ${c.ownerEmail}'s job: each role, own or not, an outsider, and signed out`, async () => {
+        const insiders = demoPeople.filter((p) => p.org === c.org);
+        for (const p of insiders) {
+          const own = p.email === c.ownerEmail;
+          const seesAll = p.role !== "student";
+          const edits = p.role === "owner" || p.role === "lead" || p.role === "technician" || (p.role === "student" && own);
+          const want = !seesAll && !own ? 404 : row.need === "edit" && !edits ? 403 : row.ok;
+          const fx = await fixture(cookies[c.ownerEmail], c.org);
+          const res = await row.call(cookies[p.email], fx);
+          expect(res.status, `${p.role} ${p.email}`).toBe(want);
+        }
+        const fx = await fixture(cookies[c.ownerEmail], c.org);
+        expect((await row.call(cookies[c.outsider], fx)).status, "outsider").toBe(404);
+        expect((await row.call(undefined, fx)).status, "signed out").toBe(401);
+      });
+    }
+  }
+
+  it("lists only a student's own jobs in a class, and everyone's to its instructor", async () => {
+    // The demo's practice jobs: one by each student.
+    const list = async (email: string) =>
+      (await (await callRoute(R(jobsRoute.GET), { path: `/api/v1/jobs?organizationId=${demoClass.id}&q=practice&limit=100`, cookie: cookies[email] })).json()).jobs as { ownerId: string }[];
+    const theo = await list("theo@fernmoor.example");
+    expect(theo.length).toBeGreaterThan(0);
+    expect(new Set(theo.map((j) => j.ownerId))).toEqual(new Set(["usr_demo_student2"]));
+    const lena = await list("lena@fernmoor.example");
+    expect(new Set(lena.map((j) => j.ownerId))).toEqual(new Set(["usr_demo_student1", "usr_demo_student2"]));
+    expect((await callRoute(R(jobsRoute.GET), { path: `/api/v1/jobs?organizationId=${demoClass.id}`, cookie: cookies["priya@larkspur.example"] })).status).toBe(404);
+    expect((await callRoute(R(jobsRoute.GET), { path: `/api/v1/jobs?organizationId=${demoClass.id}` })).status).toBe(401);
   });
 });
