@@ -19,7 +19,7 @@ export const areas: Area[] = [
       "Each job keeps its circuits, meter readings, photos and history, so nothing is measured twice.",
       "A report a service writer and a customer can read, printed, as a PDF or by e-mail.",
     ],
-    ready: false,
+    ready: true,
   },
   {
     href: "/workspace",

@@ -1,11 +1,14 @@
 import type { Metadata } from "next";
-import { AreaPreview } from "@/components/shell/area-preview";
-import { areaByHref } from "@/lib/areas";
+import { JobsTable } from "@/components/jobs/jobs-table";
+import { requireUser } from "@/lib/auth/session";
 
-const area = areaByHref("/jobs");
+export const metadata: Metadata = { title: "Jobs" };
 
-export const metadata: Metadata = { title: area.label };
-
-export default function Page() {
-  return <AreaPreview area={area} />;
+export default async function Page() {
+  await requireUser("/jobs");
+  return (
+    <div className="mx-auto max-w-7xl px-4 py-8 sm:px-6">
+      <JobsTable />
+    </div>
+  );
 }

@@ -9,6 +9,10 @@ export function SiteFooter() {
           information, local codes and licensed practice come first.{" "}
           <Link href="/privacy" className="underline underline-offset-2">
             Privacy
+          </Link>{" "}
+          ·{" "}
+          <Link href="/api-reference" className="underline underline-offset-2">
+            API
           </Link>
         </p>
       </div>

@@ -210,8 +210,9 @@ export async function listCircuits(db: Db, jobId: string) {
 
 export async function getCircuit(db: Db, circuitId: string) {
   const rows = await db
-    .select({ ...circuitSummary, document: circuits.document })
+    .select({ ...circuitSummary, jobTitle: jobs.title, document: circuits.document })
     .from(circuits)
+    .innerJoin(jobs, eq(jobs.id, circuits.jobId))
     .leftJoin(editor, eq(editor.id, circuits.updatedBy))
     .where(eq(circuits.id, circuitId))
     .limit(1);

@@ -1,3 +1,4 @@
 export * from "./load";
 export * from "./schema";
 export * from "./terminals";
+export * from "./diff";

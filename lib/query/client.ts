@@ -13,6 +13,8 @@ export class ApiClientError extends Error {
     readonly code: string,
     message: string,
     readonly issues: ApiIssue[] = [],
+    /** The whole answer, for errors that carry more than the error shape (a 412 carries the current version). */
+    readonly body?: unknown,
   ) {
     super(message);
   }
@@ -35,7 +37,7 @@ export async function apiFetch<T>(path: string, init: RequestInit & { json?: unk
   const body = text ? (JSON.parse(text) as unknown) : undefined;
   if (!res.ok) {
     const e = (body as ApiErrorBody | undefined)?.error;
-    throw new ApiClientError(res.status, e?.code ?? "http", e?.message ?? `The server answered ${res.status}.`, e?.issues);
+    throw new ApiClientError(res.status, e?.code ?? "http", e?.message ?? `The server answered ${res.status}.`, e?.issues, body);
   }
   return body as T;
 }

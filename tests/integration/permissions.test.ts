@@ -18,7 +18,7 @@ import * as jobsRoute from "@/app/api/v1/jobs/route";
 import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
-import { callRoute, signInCookie } from "../support/sessions";
+import { callRoute, removeTestJobs, signInCookie } from "../support/sessions";
 
 type Handler = Parameters<typeof callRoute>[0];
 const pool = new Pool({ connectionString: process.env.DATABASE_URL });
@@ -29,7 +29,10 @@ beforeAll(async () => {
   await seedDemo(process.env.DATABASE_URL);
   for (const p of demoPeople) cookies[p.email] = await signInCookie(p.email, DEMO_PASSWORD);
 });
-afterAll(() => pool.end());
+afterAll(async () => {
+  await removeTestJobs(pool);
+  await pool.end();
+});
 
 // Expected status by role, for a caller inside the organisation. Anyone outside it gets 404; signed out, 401.
 type Row = { name: string; handler: Handler; method?: string; json?: unknown; params?: Record<string, string>; expect: Record<string, number> };

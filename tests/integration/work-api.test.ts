@@ -15,7 +15,7 @@ import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import { DEMO_PASSWORD, demoShop } from "@/db/demo";
 import { pickupCharging } from "@/db/demo-work";
 import { seedDemo } from "@/db/seed";
-import { callRoute, signInCookie } from "../support/sessions";
+import { callRoute, removeTestJobs, signInCookie } from "../support/sessions";
 
 type Handler = Parameters<typeof callRoute>[0];
 const h = (f: unknown) => f as Handler;
@@ -30,7 +30,10 @@ beforeAll(async () => {
   lead = await signInCookie("tobias@larkspur.example", DEMO_PASSWORD);
   viewer = await signInCookie("sam@larkspur.example", DEMO_PASSWORD);
 });
-afterAll(() => pool.end());
+afterAll(async () => {
+  await removeTestJobs(pool);
+  await pool.end();
+});
 
 async function newJob(cookie: string, title = "Test job") {
   const res = await callRoute(h(jobsRoute.POST), { json: { organizationId: demoShop.id, title, vehicle: "Test pickup", complaint: "Battery light" }, cookie });

@@ -12,7 +12,7 @@ import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import { DEMO_PASSWORD, demoShop } from "@/db/demo";
 import { pickupCharging } from "@/db/demo-work";
 import { seedDemo } from "@/db/seed";
-import { signInCookie } from "../support/sessions";
+import { removeTestJobs, signInCookie } from "../support/sessions";
 
 type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 const pool = new Pool({ connectionString: process.env.DATABASE_URL });
@@ -29,7 +29,10 @@ beforeAll(async () => {
   circuitId = (await (await call(jobCircuits.POST, { document: pickupCharging }, { jobId })).json()).circuit.id;
   readingId = (await (await call(readingsRoute.POST, { positive: "B1.pos", negative: "B1.neg", value: 12.5 }, { circuitId })).json()).reading.id;
 });
-afterAll(() => pool.end());
+afterAll(async () => {
+  await removeTestJobs(pool);
+  await pool.end();
+});
 
 function send(handler: Handler, method: string, body: string, params: Record<string, string>, ifMatch?: string) {
   const req = new Request("http://127.0.0.1:3100/api/v1/fuzz", {

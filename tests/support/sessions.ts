@@ -1,3 +1,4 @@
+import type { Pool } from "pg";
 import { auth } from "@/lib/auth/server";
 
 const base = () => process.env.APP_URL ?? "http://127.0.0.1:3100";
@@ -28,4 +29,9 @@ export function callRoute(handler: Handler, opts: { method?: string; path?: stri
     body: opts.json !== undefined ? JSON.stringify(opts.json) : undefined,
   });
   return handler(req, { params: Promise.resolve(opts.params ?? {}) });
+}
+
+/** Leaves the demo as it was for the browser tests that follow: only the demo's own jobs stay. */
+export async function removeTestJobs(pool: Pool) {
+  await pool.query("delete from jobs where id not like 'job_demo_%'");
 }

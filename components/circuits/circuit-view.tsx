@@ -1,0 +1,405 @@
+"use client";
+
+import { zodResolver } from "@hookform/resolvers/zod";
+import Link from "next/link";
+import { useState } from "react";
+import { useForm } from "react-hook-form";
+import { IssueList } from "@/components/jobs/job-detail";
+import { SafetyNote } from "@/components/ui/safety-note";
+import { formatDocument, loadCircuit, stateIdsOf, terminalsOf, type CircuitDocument } from "@/lib/circuit";
+import { formatVolts, formatWhen } from "@/lib/format";
+import { staleVersionOf, useCircuit, useCreateReading, useDeleteReading, useReadings, useSaveCircuit, type Circuit } from "@/lib/hooks/circuits";
+import { createReadingInput, type CreateReadingInput } from "@/lib/validators/work";
+import { ConflictDialog } from "./conflict-dialog";
+import { describeComponent, describeWire, stateName, terminalLabel } from "./describe";
+
+const box = "rounded-lg border border-graphite-100 bg-paper-raised";
+const th = "px-3 py-2 text-left font-semibold";
+const td = "px-3 py-2 align-top";
+
+/** One circuit of a job: its parts and cables, the readings taken on it, and its document with versioned saves. */
+export function CircuitView({ id }: { id: string }) {
+  const { data, error, isPending } = useCircuit(id);
+  if (isPending) return <p className="text-graphite-500">Loading the circuit...</p>;
+  if (error) {
+    return (
+      <div role="alert" data-testid="circuit-missing">
+        <h1 className="text-2xl font-semibold">This circuit cannot be shown</h1>
+        <p className="mt-2 text-graphite-700">{error.message}</p>
+        <Link href="/jobs" className="mt-4 inline-block font-medium text-copper-700 underline">
+          Back to the jobs list
+        </Link>
+      </div>
+    );
+  }
+  const { circuit, canEdit } = data;
+  const doc = circuit.document;
+  return (
+    <div>
+      <p className="text-sm">
+        <Link href="/jobs" className="font-medium text-copper-700 underline-offset-2 hover:underline">
+          Jobs
+        </Link>{" "}
+        /{" "}
+        <Link href={`/jobs/${circuit.jobId}`} className="font-medium text-copper-700 underline-offset-2 hover:underline" data-testid="back-to-job">
+          {circuit.jobTitle}
+        </Link>{" "}
+        <span className="text-graphite-500">/ {circuit.name}</span>
+      </p>
+      <div className="mt-3 flex flex-wrap items-start justify-between gap-4">
+        <div>
+          <h1 className="text-3xl font-semibold tracking-tight" data-testid="circuit-heading">
+            {circuit.name}
+          </h1>
+          <p className="mt-1 text-graphite-700" data-testid="circuit-version">
+            Version {circuit.version} · {doc.systemVoltage} V system · saved {formatWhen(circuit.updatedAt)}
+            {circuit.updatedByName ? ` by ${circuit.updatedByName}` : ""}
+          </p>
+        </div>
+        <div className="flex flex-wrap gap-2 text-sm">
+          <Link href={`/circuits/${id}/history`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="history-link">
+            History
+          </Link>
+          <a href={`/api/v1/circuits/${id}/export`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="export-link">
+            Download (.json)
+          </a>
+        </div>
+      </div>
+
+      <PartsTables doc={doc} />
+      <ReadingsSection circuit={circuit} canEdit={canEdit} />
+      {canEdit ? <DocumentEditor circuit={circuit} /> : null}
+    </div>
+  );
+}
+
+function PartsTables({ doc }: { doc: CircuitDocument }) {
+  return (
+    <section className="mt-8 grid gap-6 lg:grid-cols-2" aria-label="Parts and cables">
+      <div>
+        <h2 className="text-lg font-semibold">Parts ({doc.components.length})</h2>
+        <div className={`${box} mt-2 overflow-x-auto`}>
+          <table className="w-full text-sm" data-testid="parts-table">
+            <thead className="bg-graphite-100/60">
+              <tr>
+                <th className={th}>Id</th>
+                <th className={th}>What</th>
+                <th className={th}>Settings</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-graphite-100">
+              {doc.components.map((c) => (
+                <tr key={c.id}>
+                  <td className={`${td} font-mono`}>{c.id}</td>
+                  <td className={td}>
+                    {c.label ?? c.kind} <span className="text-graphite-500">({c.kind})</span>
+                  </td>
+                  <td className={td}>{describeComponent(c)}</td>
+                </tr>
+              ))}
+              {doc.components.length === 0 ? (
+                <tr>
+                  <td colSpan={3} className={`${td} text-graphite-500`}>
+                    No parts yet. Add them in the document below (the drawing canvas is on its way).
+                  </td>
+                </tr>
+              ) : null}
+            </tbody>
+          </table>
+        </div>
+      </div>
+      <div>
+        <h2 className="text-lg font-semibold">Cables and connections ({doc.wires.length})</h2>
+        <div className={`${box} mt-2 overflow-x-auto`}>
+          <table className="w-full text-sm" data-testid="wires-table">
+            <thead className="bg-graphite-100/60">
+              <tr>
+                <th className={th}>Id</th>
+                <th className={th}>From → to</th>
+                <th className={th}>Conductor</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-graphite-100">
+              {doc.wires.map((w) => (
+                <tr key={w.id}>
+                  <td className={`${td} font-mono`}>{w.id}</td>
+                  <td className={td}>
+                    {w.label ? <span className="block font-medium">{w.label}</span> : null}
+                    <span className="font-mono text-xs">
+                      {w.from} → {w.to}
+                    </span>
+                  </td>
+                  <td className={td}>{describeWire(w)}</td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+        {doc.states?.length ? (
+          <p className="mt-2 text-sm text-graphite-700">
+            Operating states: Base (as drawn), {doc.states.map((s) => s.name).join(", ")}.
+          </p>
+        ) : null}
+      </div>
+    </section>
+  );
+}
+
+function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: boolean }) {
+  const doc = circuit.document;
+  const readings = useReadings(circuit.id);
+  const remove = useDeleteReading(circuit.id);
+  return (
+    <section className="mt-10" aria-labelledby="readings-h">
+      <h2 id="readings-h" className="text-xl font-semibold">
+        Readings
+      </h2>
+      <p className="mt-1 text-sm text-graphite-700">Red lead on the first point, black on the second, in the operating state named. Drops mean something only with current flowing.</p>
+      <div className={`${box} mt-3 overflow-x-auto`}>
+        <table className="w-full min-w-[760px] text-sm" data-testid="readings-table">
+          <thead className="bg-graphite-100/60">
+            <tr>
+              <th className={th}>State</th>
+              <th className={th}>Red lead</th>
+              <th className={th}>Black lead</th>
+              <th className={`${th} text-right`}>Reading</th>
+              <th className={`${th} text-right`}>Clamp</th>
+              <th className={th}>Note</th>
+              <th className={th}>Taken</th>
+              {canEdit ? <th className={th}><span className="sr-only">Remove</span></th> : null}
+            </tr>
+          </thead>
+          <tbody className="divide-y divide-graphite-100">
+            {(readings.data ?? []).map((r) => (
+              <tr key={r.id} data-testid="reading-row">
+                <td className={td}>{stateName(doc, r.stateId)}</td>
+                <td className={td}>{terminalLabel(doc, r.positive)}</td>
+                <td className={td}>{terminalLabel(doc, r.negative)}</td>
+                <td className={`${td} whitespace-nowrap text-right font-semibold tabular-nums`}>{formatVolts(r.value, r.unit)}</td>
+                <td className={`${td} whitespace-nowrap text-right tabular-nums`}>{r.currentA !== null ? `${r.currentA} A` : "-"}</td>
+                <td className={td}>{r.note}</td>
+                <td className={`${td} text-graphite-700`}>
+                  {formatWhen(r.takenAt)}
+                  {r.takenByName ? <span className="block text-xs">{r.takenByName}</span> : null}
+                </td>
+                {canEdit ? (
+                  <td className={td}>
+                    <button type="button" className="text-over underline-offset-2 hover:underline" onClick={() => remove.mutate(r.id)} aria-label={`Remove the reading of ${formatVolts(r.value, r.unit)}`}>
+                      Remove
+                    </button>
+                  </td>
+                ) : null}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+        {readings.data?.length === 0 ? <p className="px-4 py-5 text-graphite-700" data-testid="readings-empty">No readings yet.{canEdit ? " Record the first one below." : ""}</p> : null}
+      </div>
+      <IssueList error={remove.error} />
+      {canEdit ? (
+        <>
+          {doc.components.length ? <ReadingForm circuit={circuit} /> : null}
+          <div className="mt-4">
+            <SafetyNote compact />
+          </div>
+        </>
+      ) : null}
+    </section>
+  );
+}
+
+function ReadingForm({ circuit }: { circuit: Circuit }) {
+  const doc = circuit.document;
+  const terminals = terminalsOf(doc);
+  const states = stateIdsOf(doc);
+  const create = useCreateReading(circuit.id);
+  const form = useForm<CreateReadingInput>({
+    resolver: zodResolver(createReadingInput),
+    defaultValues: { stateId: states[1] ?? "base", positive: terminals[0], negative: terminals[1] ?? terminals[0], unit: "V", note: "" },
+  });
+  const errors = form.formState.errors;
+  const select = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-2 py-2";
+  const optional = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
+  return (
+    <form
+      className={`${box} mt-4 grid gap-3 p-4 sm:grid-cols-2 lg:grid-cols-4`}
+      onSubmit={form.handleSubmit((v) => create.mutate(v, { onSuccess: () => form.reset({ ...v, value: "" as unknown as number, currentA: "" as unknown as number, note: "" }) }))}
+      noValidate
+      data-testid="reading-form"
+    >
+      <label className="text-sm font-medium">
+        Operating state
+        <select className={select} {...form.register("stateId")} data-testid="reading-state">
+          {states.map((s) => (
+            <option key={s} value={s}>
+              {stateName(doc, s)}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="text-sm font-medium">
+        Red lead on
+        <select className={select} {...form.register("positive")} data-testid="reading-positive">
+          {terminals.map((t) => (
+            <option key={t} value={t}>
+              {terminalLabel(doc, t)}
+            </option>
+          ))}
+        </select>
+        {errors.positive ? <span className="text-over">{errors.positive.message}</span> : null}
+      </label>
+      <label className="text-sm font-medium">
+        Black lead on
+        <select className={select} {...form.register("negative")} data-testid="reading-negative">
+          {terminals.map((t) => (
+            <option key={t} value={t}>
+              {terminalLabel(doc, t)}
+            </option>
+          ))}
+        </select>
+      </label>
+      <div className="grid grid-cols-[1fr_auto] gap-2">
+        <label className="text-sm font-medium">
+          Meter shows
+          <input type="number" step="any" inputMode="decimal" className={select} {...form.register("value", { setValueAs: optional })} data-testid="reading-value" />
+          {errors.value ? <span className="text-over" role="alert">{errors.value.message}</span> : null}
+        </label>
+        <label className="text-sm font-medium">
+          Unit
+          <select className={select} {...form.register("unit")} data-testid="reading-unit">
+            <option value="V">V</option>
+            <option value="mV">mV</option>
+          </select>
+        </label>
+      </div>
+      <label className="text-sm font-medium">
+        Clamp meter, A (optional)
+        <input type="number" step="any" inputMode="decimal" className={select} {...form.register("currentA", { setValueAs: optional })} data-testid="reading-current" />
+        {errors.currentA ? <span className="text-over">{errors.currentA.message}</span> : null}
+      </label>
+      <label className="text-sm font-medium sm:col-span-2">
+        Note
+        <input className={select} placeholder="Engine speed, loads on, what you saw" {...form.register("note")} data-testid="reading-note" />
+      </label>
+      <div className="flex items-end">
+        <button type="submit" className="w-full rounded-md bg-copper-600 px-4 py-2 font-semibold text-white hover:bg-copper-700 disabled:opacity-60" disabled={create.isPending} data-testid="reading-save">
+          Record the reading
+        </button>
+      </div>
+      <div className="sm:col-span-2 lg:col-span-4">
+        <IssueList error={create.error} />
+      </div>
+    </form>
+  );
+}
+
+/**
+ * The circuit document as text, until the drawing canvas lands: edit it and save a new version. The save names the
+ * version it was edited from; if someone saved since, the compare dialog opens.
+ */
+function DocumentEditor({ circuit }: { circuit: Circuit }) {
+  const [text, setText] = useState(() => formatDocument(circuit.document));
+  // The version the text was loaded from: the save names it, never whatever version the page shows later.
+  const [base, setBase] = useState(circuit.version);
+  const [message, setMessage] = useState("");
+  const [local, setLocal] = useState<{ message: string; issues?: { path: string; message: string }[] } | null>(null);
+  const [pending, setPending] = useState<CircuitDocument | null>(null);
+  const save = useSaveCircuit(circuit.id);
+  const stale = staleVersionOf(save.error);
+
+  const load = (doc: CircuitDocument, version: number) => {
+    setText(formatDocument(doc));
+    setBase(version);
+    setPending(null);
+    save.reset();
+  };
+  const submit = () => {
+    setLocal(null);
+    let json: unknown;
+    try {
+      json = JSON.parse(text);
+    } catch (e) {
+      setLocal({ message: `The document is not valid JSON: ${e instanceof Error ? e.message : "check brackets and commas"}. Nothing was saved.` });
+      return;
+    }
+    const loaded = loadCircuit(json);
+    if (!loaded.ok) {
+      setLocal({ message: "The document has problems; nothing was saved.", issues: loaded.issues });
+      return;
+    }
+    setPending(loaded.document);
+    save.mutate(
+      { document: loaded.document, baseVersion: base, message: message.trim() || undefined },
+      {
+        onSuccess: (res) => {
+          setBase(res.version);
+          setPending(null);
+        },
+      },
+    );
+  };
+
+  return (
+    <details className={`${box} mt-10 p-4`} data-testid="document-editor">
+      <summary className="cursor-pointer font-semibold">Edit the circuit document (JSON)</summary>
+      <p className="mt-2 text-sm text-graphite-700">
+        Each save is a new version; the history keeps every one. If someone else saves first, you see both versions and choose.
+      </p>
+      <label className="mt-3 block text-sm font-medium" htmlFor="doc-text">
+        Document, version {base}
+      </label>
+      {circuit.version !== base && !pending ? (
+        <p className="mt-1 rounded-md border border-caution/40 bg-caution-soft px-3 py-2 text-sm" role="status" data-testid="doc-newer">
+          Version {circuit.version} was saved{circuit.updatedByName ? ` by ${circuit.updatedByName}` : ""} since you opened this.{" "}
+          <button type="button" className="font-semibold underline" onClick={() => load(circuit.document, circuit.version)}>
+            Load version {circuit.version}
+          </button>{" "}
+          (drops your unsaved edits here).
+        </p>
+      ) : null}
+      <textarea
+        id="doc-text"
+        value={text}
+        onChange={(e) => setText(e.target.value)}
+        spellCheck={false}
+        rows={18}
+        className="mt-1 w-full rounded-md border border-graphite-300 bg-white p-3 font-mono text-xs"
+        data-testid="doc-text"
+      />
+      <div className="mt-3 flex flex-wrap items-end gap-3">
+        <label className="min-w-0 flex-1 text-sm font-medium">
+          What changed (optional)
+          <input value={message} onChange={(e) => setMessage(e.target.value)} className="mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2" data-testid="doc-message" />
+        </label>
+        <button type="button" onClick={submit} disabled={save.isPending} className="rounded-md bg-copper-600 px-4 py-2 font-semibold text-white hover:bg-copper-700 disabled:opacity-60" data-testid="doc-save">
+          Save as a new version
+        </button>
+      </div>
+      <div className="mt-3 space-y-2">
+        {local ? <IssueList error={{ message: local.message, issues: local.issues ?? [] }} /> : null}
+        {save.error && !stale ? <IssueList error={save.error} /> : null}
+        {save.isSuccess ? <p className="text-sm text-within" role="status">Saved as version {save.data.version}.</p> : null}
+      </div>
+      {stale && pending ? (
+        <ConflictDialog
+          mine={pending}
+          baseVersion={base}
+          theirs={stale}
+          busy={save.isPending}
+          onReload={() => load(stale.document, stale.version)}
+          onOverwrite={() =>
+            save.mutate(
+              { document: pending, baseVersion: stale.version, message: message.trim() || `Saved over version ${stale.version}` },
+              {
+                onSuccess: (res) => {
+                  setBase(res.version);
+                  setPending(null);
+                },
+              },
+            )
+          }
+        />
+      ) : null}
+    </details>
+  );
+}
