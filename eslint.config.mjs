@@ -5,7 +5,7 @@ const config = [
   ...nextVitals,
   ...nextTs,
   {
-    ignores: ["node_modules/**", ".next/**", ".next-test/**", ".data/**", "test-artifacts/**", "drizzle/**", "next-env.d.ts"],
+    ignores: ["node_modules/**", ".next/**", ".next-test/**", ".next-bench/**", ".data/**", "test-artifacts/**", "drizzle/**", "next-env.d.ts"],
   },
   {
     rules: {

@@ -3,7 +3,7 @@ import { randomUUID } from "node:crypto";
 import { and, asc, count, desc, eq, gt, ilike, lt, max, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import type { Db } from "@/db";
-import { auditEvents, circuitRevisions, circuits, jobs, readings, user } from "@/db/schema";
+import { auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, user } from "@/db/schema";
 import type { CircuitDocument } from "@/lib/circuit";
 import type { JobStatus } from "@/lib/validators/job-status";
 
@@ -22,28 +22,53 @@ export async function audit(
 
 // ---------------------------------------------------------------- access: whose is it, in which organisation
 
-/** The organisation and owner of a job, for the permission check (no other columns). */
-export async function jobAccess(db: Db, jobId: string) {
-  const rows = await db.select({ organizationId: jobs.organizationId, ownerId: jobs.ownerId, jobId: jobs.id }).from(jobs).where(eq(jobs.id, jobId)).limit(1);
+/**
+ * Where a piece of work sits and what the caller is in that organisation, in one statement: its organisation and
+ * owner (for the own-work rule) and the caller's membership (role null when they are not a member).
+ */
+const accessColumns = () => ({
+    organizationId: jobs.organizationId,
+    ownerId: jobs.ownerId,
+    jobId: jobs.id,
+    role: member.role,
+    organizationName: organization.name,
+    organizationKind: organization.kind,
+});
+const memberOf = (userId: string) => and(eq(member.organizationId, jobs.organizationId), eq(member.userId, userId));
+
+export type WorkAccess = { organizationId: string; ownerId: string | null; jobId: string; role: string | null; organizationName: string; organizationKind: string };
+
+export async function jobAccess(db: Db, jobId: string, userId: string): Promise<WorkAccess | undefined> {
+  const rows = await db
+    .select(accessColumns())
+    .from(jobs)
+    .innerJoin(organization, eq(organization.id, jobs.organizationId))
+    .leftJoin(member, memberOf(userId))
+    .where(eq(jobs.id, jobId))
+    .limit(1);
   return rows[0];
 }
 
-export async function circuitAccess(db: Db, circuitId: string) {
+export async function circuitAccess(db: Db, circuitId: string, userId: string): Promise<WorkAccess | undefined> {
   const rows = await db
-    .select({ organizationId: jobs.organizationId, ownerId: jobs.ownerId, jobId: jobs.id })
+    .select(accessColumns())
     .from(circuits)
     .innerJoin(jobs, eq(jobs.id, circuits.jobId))
+    .innerJoin(organization, eq(organization.id, jobs.organizationId))
+    .leftJoin(member, memberOf(userId))
     .where(eq(circuits.id, circuitId))
     .limit(1);
   return rows[0];
 }
 
-export async function readingAccess(db: Db, readingId: string) {
+export async function readingAccess(db: Db, readingId: string, userId: string): Promise<(WorkAccess & { circuitId: string }) | undefined> {
   const rows = await db
-    .select({ organizationId: jobs.organizationId, ownerId: jobs.ownerId, jobId: jobs.id, circuitId: circuits.id })
+    .select({ ...accessColumns(), circuitId: circuits.id })
     .from(readings)
     .innerJoin(circuits, eq(circuits.id, readings.circuitId))
     .innerJoin(jobs, eq(jobs.id, circuits.jobId))
+    .innerJoin(organization, eq(organization.id, jobs.organizationId))
+    .leftJoin(member, memberOf(userId))
     .where(eq(readings.id, readingId))
     .limit(1);
   return rows[0];
@@ -218,6 +243,21 @@ export async function getCircuit(db: Db, circuitId: string) {
     .limit(1);
   const row = rows[0];
   return row ? { ...row, document: row.document as CircuitDocument } : undefined;
+}
+
+/**
+ * A circuit with its document as the JSON text PostgreSQL holds, for answers that pass the document through
+ * unchanged (no parse and re-serialise of a large document on the hot GET).
+ */
+export async function getCircuitRaw(db: Db, circuitId: string) {
+  const rows = await db
+    .select({ ...circuitSummary, jobTitle: jobs.title, documentJson: sql<string>`${circuits.document}::text` })
+    .from(circuits)
+    .innerJoin(jobs, eq(jobs.id, circuits.jobId))
+    .leftJoin(editor, eq(editor.id, circuits.updatedBy))
+    .where(eq(circuits.id, circuitId))
+    .limit(1);
+  return rows[0];
 }
 
 /** Creates a circuit at version 1 with its first revision, and its readings when imported with them. */

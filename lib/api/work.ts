@@ -2,7 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { db } from "@/db";
 import { findMembership, listMemberships } from "@/db/queries/organizations";
-import { circuitAccess, jobAccess, readingAccess } from "@/db/queries/work";
+import { circuitAccess, jobAccess, readingAccess, type WorkAccess } from "@/db/queries/work";
 import { can } from "@/lib/auth/permissions";
 import { currentUser, type Membership, type SignedIn } from "./authed";
 import { ApiError } from "./errors";
@@ -20,23 +20,25 @@ type Resource = "job" | "circuit" | "reading";
 export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string };
 type WorkCtx<TBody> = { req: Request; body: TBody; params: Record<string, string>; user: SignedIn; membership: Membership; target: WorkTarget };
 
-const lookups: Record<Resource, { param: string; find: (id: string) => Promise<WorkTarget | undefined>; missing: string }> = {
-  job: { param: "jobId", find: (id) => jobAccess(db, id), missing: "There is no such job, or it is not yours to see." },
+type Found = WorkAccess & { circuitId?: string; readingId?: string };
+const lookups: Record<Resource, { param: string; find: (id: string, userId: string) => Promise<Found | undefined>; missing: string }> = {
+  job: { param: "jobId", find: (id, userId) => jobAccess(db, id, userId), missing: "There is no such job, or it is not yours to see." },
   circuit: {
     param: "circuitId",
-    find: async (id) => {
-      const row = await circuitAccess(db, id);
+    find: async (id, userId) => {
+      const row = await circuitAccess(db, id, userId);
       return row ? { ...row, circuitId: id } : undefined;
     },
     missing: "There is no such circuit, or it is not yours to see.",
   },
   reading: {
     param: "readingId",
-    find: async (id) => {
-      const row = await readingAccess(db, id);
+    find: async (id, userId) => {
+      const row = await readingAccess(db, id, userId);
       return row ? { ...row, readingId: id } : undefined;
     },
-    missing: "There is no such reading, or it is not yours to see." },
+    missing: "There is no such reading, or it is not yours to see.",
+  },
 };
 
 /**
@@ -53,10 +55,13 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
     const user = await currentUser(ctx.req);
     if (!user) throw new ApiError(401, "signed-out", "Sign in first.");
     const id = ctx.params[lookup.param] ?? "";
-    const target = id ? await lookup.find(id) : undefined;
-    const membership = target ? await findMembership(db, { userId: user.id, organizationId: target.organizationId }) : undefined;
-    const rights = membership && target ? workRights(membership.role, target.ownerId === user.id) : undefined;
-    if (!target || !membership || !rights?.read) throw new ApiError(404, "not-found", lookup.missing);
+    // One statement finds the work and the caller's role in its organisation.
+    const found = id ? await lookup.find(id, user.id) : undefined;
+    const membership: Membership | undefined =
+      found?.role ? { organizationId: found.organizationId, role: found.role, kind: found.organizationKind, name: found.organizationName } : undefined;
+    const rights = membership && found ? workRights(membership.role, found.ownerId === user.id) : undefined;
+    if (!found || !membership || !rights?.read) throw new ApiError(404, "not-found", lookup.missing);
+    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId };
     if (options.need === "edit" && !rights.edit) {
       throw new ApiError(403, "forbidden", `Your role (${membership.role}) in ${membership.name} lets you read this work but not change it.`);
     }

@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { deleteCircuit, getCircuit, saveCircuit } from "@/db/queries/work";
+import { deleteCircuit, getCircuitRaw, saveCircuit } from "@/db/queries/work";
 import { errorResponse } from "@/lib/api/errors";
 import { workRights, workRoute } from "@/lib/api/work";
 import { etagOf, expectedVersion } from "@/lib/api/work-responses";
@@ -7,10 +7,15 @@ import { MAX_WORK_BYTES, replaceCircuitInput } from "@/lib/validators/work";
 
 // GET /api/v1/circuits/:circuitId - the circuit document and its version (ETag "N")
 export const GET = workRoute({ resource: "circuit", need: "read" }, async ({ target, membership, user }) => {
-  const circuit = await getCircuit(db, target.circuitId!);
-  if (!circuit) return errorResponse(404, "not-found", "There is no such circuit.");
+  const row = await getCircuitRaw(db, target.circuitId!);
+  if (!row) return errorResponse(404, "not-found", "There is no such circuit.");
+  const { documentJson, ...meta } = row;
   const canEdit = workRights(membership.role, target.ownerId === user.id).edit;
-  return Response.json({ circuit, canEdit }, { headers: { etag: etagOf(circuit.version), "cache-control": "private, no-cache" } });
+  // The stored document goes out as the database holds it: a large circuit is not parsed and re-serialised here.
+  const body = `{"circuit":${JSON.stringify(meta).slice(0, -1)},"document":${documentJson}},"canEdit":${canEdit}}`;
+  return new Response(body, {
+    headers: { "content-type": "application/json", etag: etagOf(row.version), "cache-control": "private, no-cache" },
+  });
 });
 
 // PUT /api/v1/circuits/:circuitId - replace the document (If-Match: the version edited; 412 when someone saved since)
