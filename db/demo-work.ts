@@ -5,11 +5,17 @@
  */
 import type { CircuitDocument } from "@/lib/circuit";
 
+/** Lays a demo circuit out on the canvas (grid of 20): positions by component id. */
+function place(doc: CircuitDocument, at: Record<string, [number, number]>): CircuitDocument {
+  return { ...doc, components: doc.components.map((c) => (at[c.id] ? { ...c, position: { x: at[c.id][0], y: at[c.id][1] } } : c)) };
+}
+
 const joint = (id: string, label: string, resistance: number) => ({ id, kind: "joint" as const, label, resistance });
 const link = (id: string, from: string, to: string) => ({ id, from, to, resistanceOhm: 0 });
 
 /** Unit 14: one battery, a 160 A alternator whose mounting (its ground path) has corroded. */
-export const pickupCharging: CircuitDocument = {
+export const pickupCharging: CircuitDocument = place(
+  {
   schema: "ampwright.circuit/1",
   name: "Charging circuit",
   systemVoltage: 12,
@@ -43,10 +49,13 @@ export const pickupCharging: CircuitDocument = {
     { id: "charge", name: "Charging at idle, loads on", set: { A1: { enabled: true }, L1: { enabled: true } } },
     { id: "koeo", name: "Key on, engine off", set: { L1: { enabled: true, value: 120 } } },
   ],
-};
+  },
+  { B1: [40, 240], JBP: [40, 60], F1: [260, 60], JAB: [480, 60], A1: [720, 160], JAC: [720, 340], GE: [740, 500], JBN: [40, 420], L1: [300, 260], GB: [320, 440] },
+);
 
 /** Unit 31: three batteries in parallel feeding the starter; the third battery is weak. */
-export const tractorStarting: CircuitDocument = {
+export const tractorStarting: CircuitDocument = place(
+  {
   schema: "ampwright.circuit/1",
   name: "Starting circuit",
   systemVoltage: 12,
@@ -76,10 +85,13 @@ export const tractorStarting: CircuitDocument = {
     link("WGB", "JFG.b", "B1.neg"),
   ],
   states: [{ id: "crank", name: "Cranking, cold engine", set: { M1: { enabled: true } } }],
-};
+  },
+  { B1: [0, 0], B2: [0, 180], B3: [0, 360], JST: [280, 0], M1: [520, 100], JSM: [520, 280], GE: [540, 440], JFG: [280, 440], GF: [300, 580] },
+);
 
 /** The customer's van: a winch and an inverter added on the existing battery, with their own feeds and fuses. */
-export const vanUpfit: CircuitDocument = {
+export const vanUpfit: CircuitDocument = place(
+  {
   schema: "ampwright.circuit/1",
   name: "Winch and inverter feeds",
   systemVoltage: 12,
@@ -114,10 +126,13 @@ export const vanUpfit: CircuitDocument = {
     { id: "winch", name: "Winching, engine running", set: { A1: { enabled: true }, MW: { enabled: true } } },
     { id: "inverter", name: "Inverter at full load, engine idling", set: { A1: { enabled: true }, LI: { enabled: true } } },
   ],
-};
+  },
+  { A1: [0, 0], B1: [0, 200], GE: [20, 400], GF: [300, 520], FW: [240, 120], SW: [460, 120], MW: [700, 120], FI: [240, 300], LI: [460, 300], GR: [720, 320] },
+);
 
 /** The class's bench trainer: a battery, an alternator on a drive motor and removable joints to break on purpose. */
-export const benchTrainer: CircuitDocument = {
+export const benchTrainer: CircuitDocument = place(
+  {
   schema: "ampwright.circuit/1",
   name: "Bench trainer B, charging",
   systemVoltage: 12,
@@ -140,7 +155,9 @@ export const benchTrainer: CircuitDocument = {
     { id: "W7", label: "Lamp bank return", from: "L1.neg", to: "G1.t", size: "8 AWG", lengthM: 1, zone: "cabin" },
   ],
   states: [{ id: "charge", name: "Charging with the lamp bank on", set: { A1: { enabled: true }, L1: { enabled: true } } }],
-};
+  },
+  { A1: [0, 0], JP: [260, 0], B1: [520, 100], L1: [520, 300], JN: [260, 220], G1: [280, 400] },
+);
 
 /** A student's copy with a joint they loosened on purpose. */
 export const studentCopy: CircuitDocument = {

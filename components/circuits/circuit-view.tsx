@@ -57,6 +57,9 @@ export function CircuitView({ id }: { id: string }) {
           </p>
         </div>
         <div className="flex flex-wrap gap-2 text-sm">
+          <Link href={`/circuits/${id}/workspace`} className="rounded-md bg-copper-600 px-3 py-1.5 font-semibold text-white hover:bg-copper-700" data-testid="workspace-link">
+            Open in the workspace
+          </Link>
           <Link href={`/circuits/${id}/history`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="history-link">
             History
           </Link>
@@ -100,7 +103,7 @@ function PartsTables({ doc }: { doc: CircuitDocument }) {
               {doc.components.length === 0 ? (
                 <tr>
                   <td colSpan={3} className={`${td} text-graphite-500`}>
-                    No parts yet. Add them in the document below (the drawing canvas is on its way).
+                    No parts yet. Draw them in the workspace.
                   </td>
                 </tr>
               ) : null}
@@ -294,7 +297,7 @@ function ReadingForm({ circuit }: { circuit: Circuit }) {
 }
 
 /**
- * The circuit document as text, until the drawing canvas lands: edit it and save a new version. The save names the
+ * The circuit document as text, for pasting or fixing by hand beside the workspace: edit it and save a new version. The save names the
  * version it was edited from; if someone saved since, the compare dialog opens.
  */
 function DocumentEditor({ circuit }: { circuit: Circuit }) {
@@ -341,7 +344,7 @@ function DocumentEditor({ circuit }: { circuit: Circuit }) {
 
   return (
     <details className={`${box} mt-10 p-4`} data-testid="document-editor">
-      <summary className="cursor-pointer font-semibold">Edit the circuit document (JSON)</summary>
+      <summary className="cursor-pointer font-semibold">Edit the circuit document as text (JSON)</summary>
       <p className="mt-2 text-sm text-graphite-700">
         Each save is a new version; the history keeps every one. If someone else saves first, you see both versions and choose.
       </p>

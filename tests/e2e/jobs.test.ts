@@ -107,7 +107,7 @@ describe("jobs, circuits, readings and history in the browser", () => {
     await b.goto(url, { waitUntil: "networkidle" });
 
     const edit = async (page: Page, name: string) => {
-      await page.getByText("Edit the circuit document (JSON)").click();
+      await page.getByText("Edit the circuit document as text (JSON)").click();
       const doc = JSON.parse(await page.getByTestId("doc-text").inputValue());
       doc.components = [{ id: "B1", kind: "battery", label: name, openCircuitVoltage: 12.6, internalResistance: 0.006 }];
       doc.name = name;

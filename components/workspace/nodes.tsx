@@ -1,0 +1,97 @@
+"use client";
+
+import { Handle, Position, type Node, type NodeProps, type NodeTypes } from "@xyflow/react";
+import { TERMINALS, type Component, type ComponentKind } from "@/lib/circuit";
+import type { Band } from "@/lib/workspace/analysis";
+import { Symbol } from "./symbols";
+
+/** What a part's node carries: the part itself and, when solved, its terminals' voltages and its state. */
+export type PartData = {
+  component: Component;
+  /** Volts at each terminal (by terminal name) relative to the reference. */
+  volts?: Record<string, number>;
+  /** A joint's drop band, or a part that is off. */
+  band?: Band;
+  off?: boolean;
+  note?: string;
+};
+export type PartNode = Node<PartData, ComponentKind>;
+
+const ROLE: Record<string, string> = { pos: "+", neg: "−", out: "B+", case: "case", in: "in", a: "a", b: "b", t: "" };
+
+const bandRing: Record<Band, string> = {
+  within: "border-graphite-300",
+  caution: "border-caution ring-2 ring-caution/40",
+  over: "border-over ring-2 ring-over/50 border-dashed",
+};
+
+function volts(v: number | undefined) {
+  return v === undefined ? null : `${v.toFixed(Math.abs(v) < 10 ? 3 : 2)} V`;
+}
+
+function PartView({ data, selected, type }: NodeProps<PartNode>) {
+  const c = data.component;
+  const kind = type as ComponentKind;
+  const oneTerminal = kind === "junction" || kind === "ground";
+  const [first, second] = TERMINALS[kind];
+  const ring = data.band ? bandRing[data.band] : "border-graphite-300";
+  return (
+    <div
+      className={`relative rounded-md border bg-white px-2 pb-1 pt-1 text-center shadow-sm ${ring} ${selected ? "outline outline-2 outline-offset-2 outline-copper-500" : ""} ${data.off ? "opacity-60" : ""}`}
+      style={{ width: oneTerminal ? 96 : 132 }}
+      data-testid={`part-${c.id}`}
+      title={data.note}
+    >
+      <div className="flex items-baseline justify-between gap-1 text-[10px] leading-3 text-graphite-500">
+        <span className="font-mono font-semibold text-graphite-800">{c.id}</span>
+        {data.off ? <span>off</span> : data.band === "over" ? <span className="font-semibold text-over">over</span> : null}
+      </div>
+      <Symbol kind={kind} className={`mx-auto h-9 w-14 ${data.band === "over" ? "text-over" : data.band === "caution" ? "text-caution" : "text-graphite-900"}`} />
+      <div className="truncate text-[11px] leading-tight text-graphite-800">{c.label ?? kindWord[kind]}</div>
+      {oneTerminal ? (
+        <>
+          <Handle id="t" type="source" position={Position.Top} className="!h-3 !w-3 !border-2 !border-white !bg-copper-600" aria-label={`${c.id} terminal`} />
+          {data.volts?.t !== undefined ? <div className="mt-0.5 font-mono text-[10px] text-copper-700">{volts(data.volts.t)}</div> : null}
+        </>
+      ) : (
+        <>
+          <Handle id={first} type="source" position={Position.Left} className="!h-3 !w-3 !border-2 !border-white !bg-copper-600" aria-label={`${c.id} ${first}`} />
+          <Handle id={second} type="source" position={Position.Right} className="!h-3 !w-3 !border-2 !border-white !bg-graphite-700" aria-label={`${c.id} ${second}`} />
+          <span className="absolute -left-1 top-1/2 -translate-x-full -translate-y-5 text-[10px] font-semibold text-graphite-700">{ROLE[first]}</span>
+          <span className="absolute -right-1 top-1/2 -translate-y-5 translate-x-full text-[10px] font-semibold text-graphite-700">{ROLE[second]}</span>
+          {data.volts ? (
+            <div className="mt-0.5 flex justify-between font-mono text-[10px] text-copper-700">
+              <span>{volts(data.volts[first])}</span>
+              <span>{volts(data.volts[second])}</span>
+            </div>
+          ) : null}
+        </>
+      )}
+    </div>
+  );
+}
+
+const kindWord: Record<ComponentKind, string> = {
+  battery: "Battery",
+  alternator: "Alternator",
+  starter: "Starter",
+  load: "Load",
+  fuse: "Fuse",
+  switch: "Switch",
+  joint: "Joint",
+  junction: "Junction",
+  ground: "Ground",
+};
+
+/** One node type per part kind, all drawn by PartView with the kind's symbol. */
+export const nodeTypes = {
+  battery: PartView,
+  alternator: PartView,
+  starter: PartView,
+  load: PartView,
+  fuse: PartView,
+  switch: PartView,
+  joint: PartView,
+  junction: PartView,
+  ground: PartView,
+} satisfies NodeTypes;

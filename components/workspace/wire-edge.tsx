@@ -1,0 +1,53 @@
+"use client";
+
+import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, type Edge, type EdgeProps, type EdgeTypes } from "@xyflow/react";
+import type { Wire } from "@/lib/circuit";
+import type { Band, Overlay, WireFigures } from "@/lib/workspace/analysis";
+
+export type WireData = { wire: Wire; figures?: WireFigures; overlay: Overlay; conductor: string };
+export type WireEdgeType = Edge<WireData, "wire">;
+
+export const BAND_COLOUR: Record<Band, string> = { within: "#2d7a56", caution: "#a86a0c", over: "#b0301f" };
+
+/** A cable: its size and length on the line, and once solved its current and drop, coloured by the chosen overlay. */
+function WireEdge(props: EdgeProps<WireEdgeType>) {
+  const { data, selected } = props;
+  const [path, x, y] = getSmoothStepPath({ ...props, borderRadius: 6 });
+  const f = data?.figures;
+  const band = f ? f.band[data.overlay] : undefined;
+  const over = f && f.over.length > 0;
+  const colour = band ? BAND_COLOUR[band] : "#68737d";
+  const direct = data?.wire.resistanceOhm === 0;
+  return (
+    <>
+      <BaseEdge
+        id={props.id}
+        path={path}
+        style={{ stroke: colour, strokeWidth: selected ? 4 : direct ? 2 : 3, strokeDasharray: over ? "8 4" : undefined }}
+        interactionWidth={16}
+      />
+      {direct && !selected ? null : (
+        <EdgeLabelRenderer>
+          <div
+            className={`nodrag nopan pointer-events-auto absolute rounded border bg-white/95 px-1.5 py-0.5 text-center font-mono text-[10px] leading-tight shadow-sm ${selected ? "border-copper-500" : "border-graphite-100"}`}
+            style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)` }}
+            data-testid={`wire-${props.id}`}
+          >
+            <div className="text-graphite-700">
+              <span className="font-semibold text-graphite-900">{props.id}</span> {data?.conductor}
+            </div>
+            {f ? (
+              <div style={{ color: colour }} className="font-semibold">
+                {over ? "▲ " : ""}
+                {Math.abs(f.current).toFixed(1)} A · {Math.abs(f.drop) < 0.1 ? `${(Math.abs(f.drop) * 1000).toFixed(1)} mV` : `${Math.abs(f.drop).toFixed(3)} V`}
+                {data?.overlay === "loss" ? ` · ${f.power.toFixed(1)} W` : data?.overlay === "ampacity" && f.usePercent !== undefined ? ` · ${f.usePercent.toFixed(0)} %` : ""}
+              </div>
+            ) : null}
+          </div>
+        </EdgeLabelRenderer>
+      )}
+    </>
+  );
+}
+
+export const edgeTypes = { wire: WireEdge } satisfies EdgeTypes;

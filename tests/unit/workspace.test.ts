@@ -1,0 +1,57 @@
+import { describe, expect, it } from "vitest";
+import { benchTrainer, pickupCharging } from "@/db/demo-work";
+import { loadCircuit } from "@/lib/circuit";
+import { solveCircuit } from "@/lib/solver";
+import { assess, bandOf } from "@/lib/workspace/analysis";
+import { addComponent, addWire, copyItems, pasteItems, removeItems } from "@/lib/workspace/edit";
+
+describe("workspace edits", () => {
+  it("adds parts with the next free id, joins them, and keeps the document valid", () => {
+    let doc = benchTrainer;
+    const a = addComponent(doc, "joint", { x: 10, y: 10 });
+    expect(a.id).toBe("J1");
+    doc = a.doc;
+    const w = addWire(doc, "J1.a", "B1.pos");
+    expect(w.id).toBe("W8");
+    expect(addWire(w.doc, "B1.pos", "J1.a").refused).toMatch(/joined already/);
+    expect(loadCircuit(w.doc).ok).toBe(true);
+  });
+
+  it("removes a part with its cables and its state lines", () => {
+    const doc = removeItems(pickupCharging, ["L1"], []);
+    expect(doc.wires.some((w) => w.from.startsWith("L1.") || w.to.startsWith("L1."))).toBe(false);
+    expect(doc.states?.every((s) => !("L1" in s.set))).toBe(true);
+    expect(loadCircuit(doc).ok).toBe(true);
+  });
+
+  it("pastes a copy with fresh ids and the cables between the copied parts", () => {
+    const clip = copyItems(benchTrainer, ["JP", "B1"]);
+    expect(clip.wires.map((w) => w.id)).toEqual(["W2"]);
+    const r = pasteItems(benchTrainer, clip);
+    expect(r.ids).toEqual(["B2", "J1"]); // in document order
+    expect(r.doc.wires.at(-1)).toMatchObject({ from: "J1.b", to: "B2.pos" });
+    expect(loadCircuit(r.doc).ok).toBe(true);
+  });
+});
+
+describe("what the canvas marks", () => {
+  it("bands a value against its limit: within under 60 %, caution to 100 %, over past it", () => {
+    // The 60 % caution threshold is Ampwright's own display choice (no source); the limits are common practice.
+    expect([bandOf(0.05, 0.1), bandOf(0.06, 0.1), bandOf(0.1, 0.1), bandOf(0.11, 0.1)]).toEqual(["within", "caution", "caution", "over"]);
+  });
+
+  it("marks the demo's corroded bracket over the 0.1 V connection limit while charging, and leaves links out", () => {
+    const result = solveCircuit(pickupCharging, { state: "charge" });
+    const rows = assess(pickupCharging, result);
+    const jac = rows.find((r) => r.id === "JAC")!;
+    // I R with the solved current: the joint's drop equals its current times its 35 mOhm (Ohm's law).
+    expect(Math.abs(jac.drop)).toBeCloseTo(Math.abs(jac.current) * 0.035, 9);
+    expect(jac.over).toEqual(["drop"]);
+    expect(rows.some((r) => r.id === "W0")).toBe(false);
+    const w2 = rows.find((r) => r.id === "W2")!;
+    // 4 AWG at 105 C in the engine zone (50 C): 33 CFR 183.425 Table 5, 160 A for 4 AWG at 105 C (from memory, the
+    // row kept in tests/fixtures/conductor-references.json); the NFPA 70 310.15(B)(1) ambient factor
+    // sqrt((105 - 50) / (105 - 30)) = 0.856 brings it to about 137 A.
+    expect(w2.ampacityA).toBeCloseTo(160 * Math.sqrt(55 / 75), 6);
+  });
+});
