@@ -30,7 +30,7 @@ export const areas: Area[] = [
       "Switch between cranking, charging, key-on and added-load states and see the solved circuit at once.",
       "Cable resistance from size, material, length and temperature, not guesses.",
     ],
-    ready: false,
+    ready: true,
   },
   {
     href: "/diagnosis",

@@ -102,11 +102,14 @@ export function PropertiesPanel(props: {
   onDelete: () => void;
 }) {
   const { item, prefs } = props;
-  const fields = useMemo(() => (item.kind === "component" ? componentFields(item.value) : wireFields(item.value, prefs)), [item, prefs]);
+  // The form follows the item's content, not its identity: the editor re-renders often (solves, saves) and a
+  // reset on each would throw away what is being typed.
+  const content = JSON.stringify(item.value);
+  const fields = useMemo(() => (item.kind === "component" ? componentFields(item.value) : wireFields(item.value, prefs)), [content, prefs]); // eslint-disable-line react-hooks/exhaustive-deps
   const values = useMemo(() => {
     const src = item.value as Record<string, unknown>;
     return Object.fromEntries(fields.map((f) => [f.key, f.key === "fixed" ? src.resistanceOhm !== undefined : show(src[f.key], f)]));
-  }, [item, fields]);
+  }, [content, fields]); // eslint-disable-line react-hooks/exhaustive-deps
   const form = useForm<Record<string, string | boolean>>({ defaultValues: values });
   useEffect(() => form.reset(values), [form, values]);
 

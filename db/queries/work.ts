@@ -233,6 +233,22 @@ export async function listCircuits(db: Db, jobId: string) {
     .orderBy(asc(circuits.createdAt), asc(circuits.id));
 }
 
+/** The organisation's most recently saved circuits (only this owner's jobs when ownerId is given). */
+export async function listRecentCircuits(db: Db, p: { organizationId: string; ownerId?: string; limit: number }) {
+  return db
+    .select({
+      ...circuitSummary,
+      jobTitle: jobs.title,
+      components: sql<number>`jsonb_array_length(${circuits.document}->'components')`,
+    })
+    .from(circuits)
+    .innerJoin(jobs, eq(jobs.id, circuits.jobId))
+    .leftJoin(editor, eq(editor.id, circuits.updatedBy))
+    .where(and(eq(jobs.organizationId, p.organizationId), p.ownerId ? eq(jobs.ownerId, p.ownerId) : undefined))
+    .orderBy(desc(circuits.updatedAt), desc(circuits.id))
+    .limit(p.limit);
+}
+
 export async function getCircuit(db: Db, circuitId: string) {
   const rows = await db
     .select({ ...circuitSummary, jobTitle: jobs.title, document: circuits.document })

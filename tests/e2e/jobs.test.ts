@@ -1,9 +1,13 @@
-import type { Page } from "playwright-core";
-import { describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/demo";
-import { baseUrl, screenshot, sharedBrowser, watchPage } from "../support/browser";
+import { baseUrl, screenshot, sharedBrowser, signedInContext, watchPage } from "../support/browser";
 
 const browser = sharedBrowser();
+let priya: BrowserContext;
+beforeAll(async () => {
+  priya = await signedInContext(browser(), "priya@larkspur.example", DEMO_PASSWORD);
+});
 
 async function signIn(page: Page, email: string, next: string) {
   await page.goto(`${baseUrl}/sign-in?next=${encodeURIComponent(next)}`, { waitUntil: "networkidle" });
@@ -17,9 +21,10 @@ const titles = (page: Page) => page.getByTestId("job-link").allTextContents();
 
 describe("jobs, circuits, readings and history in the browser", () => {
   it("lists the shop's jobs with search, status filter and sort, and opens a new job with a circuit", async () => {
-    const page = await browser().newPage({ viewport: { width: 1440, height: 900 } });
+    const page = await priya.newPage();
+    await page.setViewportSize({ width: 1440, height: 900 });
     const watch = watchPage(page);
-    await signIn(page, "priya@larkspur.example", "/jobs");
+    await page.goto(`${baseUrl}/jobs`, { waitUntil: "networkidle" });
     await page.getByTestId("job-row").first().waitFor();
     expect(await page.getByTestId("jobs-org").textContent()).toContain("Larkspur Road Auto Electric");
     expect(await titles(page)).toEqual(expect.arrayContaining(["Battery light at idle", "Slow crank when cold", "Winch and inverter upfit"]));
@@ -65,9 +70,9 @@ describe("jobs, circuits, readings and history in the browser", () => {
   });
 
   it("shows a demo circuit with its readings, and records a new reading", async () => {
-    const page = await browser().newPage({ viewport: { width: 1440, height: 1000 } });
+    const page = await priya.newPage();
     const watch = watchPage(page);
-    await signIn(page, "priya@larkspur.example", "/jobs/job_demo_unit14");
+    await page.goto(`${baseUrl}/jobs/job_demo_unit14`, { waitUntil: "networkidle" });
     await page.getByTestId("circuit-link").first().waitFor();
     expect(await page.getByTestId("readings-summary").textContent()).toMatch(/1 circuit, \d+ readings taken/);
     await screenshot(page, "job-1440");

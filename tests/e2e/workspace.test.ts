@@ -1,16 +1,16 @@
-import type { Page } from "playwright-core";
-import { describe, expect, it } from "vitest";
+import type { BrowserContext, Page } from "playwright-core";
+import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD } from "@/db/demo";
-import { baseUrl, screenshot, sharedBrowser, watchPage } from "../support/browser";
+import { baseUrl, screenshot, sharedBrowser, signedInContext, watchPage } from "../support/browser";
 
 const browser = sharedBrowser();
+let priya: BrowserContext;
+beforeAll(async () => {
+  priya = await signedInContext(browser(), "priya@larkspur.example", DEMO_PASSWORD);
+});
 
 async function open(page: Page, path: string) {
-  await page.goto(`${baseUrl}/sign-in?next=${encodeURIComponent(path)}`, { waitUntil: "networkidle" });
-  await page.getByTestId("sign-in-email").fill("priya@larkspur.example");
-  await page.getByTestId("sign-in-password").fill(DEMO_PASSWORD);
-  await page.getByTestId("sign-in-submit").click();
-  await page.waitForURL((u) => u.pathname === path);
+  await page.goto(`${baseUrl}${path}`, { waitUntil: "networkidle" });
   await page.getByTestId("part-B1").waitFor();
 }
 
@@ -18,7 +18,7 @@ const problems = (page: Page) => page.getByTestId("ws-problems").textContent();
 
 describe("the circuit workspace", () => {
   it("solves the demo charging circuit per state, finds the bad bracket, fixes it with undo and redo, and saves each change", async () => {
-    const page = await browser().newPage({ viewport: { width: 1440, height: 1000 } });
+    const page = await priya.newPage();
     const watch = watchPage(page);
     await open(page, "/circuits/cir_demo_unit14_charging/workspace");
     await page.getByTestId("ws-state").selectOption("charge");
@@ -28,13 +28,14 @@ describe("the circuit workspace", () => {
     expect(await page.getByTestId("part-JAC").textContent()).toContain("over");
     await screenshot(page, "workspace-charging-1440");
 
+    const before = Number((await page.getByTestId("ws-save").textContent())?.match(/version (\d+)/)?.[1]);
     await page.getByTestId("ws-state").selectOption("base");
     await page.getByTestId("part-JAC").click();
     await page.getByTestId("prop-resistance").fill("0.4 mOhm");
     await page.getByTestId("prop-resistance").press("Enter");
     await page.getByTestId("ws-state").selectOption("charge");
     await expect.poll(() => problems(page)).not.toContain("JAC");
-    await expect.poll(() => page.getByTestId("ws-save").textContent(), { timeout: 10_000 }).toBe("Saved, version 3");
+    await expect.poll(() => page.getByTestId("ws-save").textContent(), { timeout: 10_000 }).toBe(`Saved, version ${before + 1}`);
 
     await page.getByTestId("ws-undo").click();
     await expect.poll(() => problems(page)).toContain("JAC");
@@ -46,20 +47,25 @@ describe("the circuit workspace", () => {
     await page.getByTestId("part-JAC").click();
     await page.getByTestId("prop-resistance").fill("12 ft");
     await page.getByTestId("prop-resistance").press("Enter");
-    expect(await page.getByTestId("properties").textContent()).toContain("is not a resistance");
+    await expect.poll(() => page.getByTestId("properties").textContent()).toContain("is not a resistance");
     expect(watch.problems).toEqual([]);
     await page.close();
   });
 
   it("adds, joins and removes parts, and shows each cable's figures in the results table", async () => {
-    const page = await browser().newPage({ viewport: { width: 1440, height: 1000 } });
+    const page = await priya.newPage();
     await open(page, "/circuits/cir_demo_van_feeds/workspace");
     await page.getByTestId("ws-result-row").first().waitFor();
     const rowsBefore = await page.getByTestId("ws-result-row").count();
     await page.getByTestId("palette-load").click();
     await page.getByTestId("part-L1").waitFor();
     // Join the new load's + to the battery's + by dragging between their terminal dots.
-    await page.locator('[data-testid="part-L1"] .react-flow__handle[data-handleid="pos"]').dragTo(page.locator('[data-testid="part-B1"] .react-flow__handle[data-handleid="pos"]'));
+    const from = await page.locator('[data-testid="part-L1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
+    const to = await page.locator('[data-testid="part-B1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
+    await page.mouse.move(from!.x + from!.width / 2, from!.y + from!.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(to!.x + to!.width / 2, to!.y + to!.height / 2, { steps: 12 });
+    await page.mouse.up();
     await expect.poll(() => page.getByTestId("ws-result-row").count()).toBe(rowsBefore + 1);
     await page.getByTestId("part-L1").click();
     await page.keyboard.press("Delete");
@@ -68,8 +74,25 @@ describe("the circuit workspace", () => {
     await page.close();
   });
 
+  it("starts a circuit in a job from a starting point and solves its cranking state", async () => {
+    const page = await priya.newPage();
+    await page.setViewportSize({ width: 1280, height: 900 });
+    await page.goto(`${baseUrl}/workspace`, { waitUntil: "networkidle" });
+    expect(await page.getByTestId("recent-circuits").textContent()).toContain("Charging circuit");
+    await page.getByTestId("start-job").selectOption({ label: "Slow crank when cold (12 V)" });
+    await page.getByTestId("template-starting").check();
+    await screenshot(page, "workspace-start-1280");
+    await page.getByTestId("start-create").click();
+    await page.waitForURL(/\/circuits\/cir_.*\/workspace$/);
+    await page.getByTestId("part-M1").waitFor();
+    await page.getByTestId("ws-state").selectOption("crank");
+    await expect.poll(async () => (await page.getByTestId("ws-results").textContent()) ?? "").toContain("200.0 A");
+    await page.close();
+  });
+
   it("fits a phone: the canvas first, the panels below, no sideways scrolling of the page", async () => {
-    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
+    const page = await priya.newPage();
+    await page.setViewportSize({ width: 390, height: 844 });
     await open(page, "/circuits/cir_demo_unit31_starting/workspace");
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);

@@ -1,6 +1,6 @@
 import fs from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
@@ -56,4 +56,20 @@ export function sharedBrowser(): () => Browser {
     if (!browser) throw new Error("the browser is not running yet");
     return browser;
   };
+}
+
+/**
+ * A browser context signed in once as a demo person, for the tests of a file to share: the sign-in abuse limit
+ * (five a minute per address and account) is then never reached by the suite itself.
+ */
+export async function signedInContext(browser: Browser, email: string, password: string): Promise<BrowserContext> {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 1000 } });
+  const page = await context.newPage();
+  await page.goto(`${baseUrl}/sign-in?next=/account`, { waitUntil: "networkidle" });
+  await page.getByTestId("sign-in-email").fill(email);
+  await page.getByTestId("sign-in-password").fill(password);
+  await page.getByTestId("sign-in-submit").click();
+  await page.waitForURL((u) => u.pathname === "/account");
+  await page.close();
+  return context;
 }

@@ -55,3 +55,20 @@ describe("what the canvas marks", () => {
     expect(w2.ampacityA).toBeCloseTo(160 * Math.sqrt(55 / 75), 6);
   });
 });
+
+describe("starting points", () => {
+  it("every template is a valid document that solves in each of its states, at 12 and 24 V", async () => {
+    const { TEMPLATES } = await import("@/lib/workspace/templates");
+    for (const t of TEMPLATES) {
+      for (const v of [12, 24]) {
+        const doc = t.build(v);
+        const loaded = loadCircuit(doc);
+        expect(loaded.ok, `${t.id} ${v} V`).toBe(true);
+        if (!doc.components.length) continue;
+        for (const s of ["base", ...(doc.states ?? []).map((x) => x.id)]) {
+          expect(solveCircuit(doc, { state: s }).status, `${t.id} ${v} V ${s}`).toBe("ok");
+        }
+      }
+    }
+  });
+});
