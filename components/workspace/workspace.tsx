@@ -22,7 +22,7 @@ import { staleVersionOf, useCircuit, useSaveCircuit, type StaleVersion } from "@
 import { solveCircuit, type SolveResult } from "@/lib/solver";
 import { fromSI } from "@/lib/units";
 import { assess, CANVAS_LIMITS, type Overlay } from "@/lib/workspace/analysis";
-import { addComponent, addWire, copyItems, KIND_NAMES, moveComponents, pasteItems, removeItems, updateComponent, updateWire, withPositions, type Clip } from "@/lib/workspace/edit";
+import { addComponent, addWire, copyItems, freeSpot, KIND_NAMES, moveComponents, pasteItems, removeItems, updateComponent, updateWire, withPositions, type Clip } from "@/lib/workspace/edit";
 import { exportCanvas } from "./export";
 import { nodeTypes, type PartNode } from "./nodes";
 import { PropertiesPanel, type UnitPrefs } from "./properties-panel";
@@ -275,8 +275,7 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
     (kind: ComponentKind, at?: { x: number; y: number }) => {
       const box = wrapper.current?.getBoundingClientRect();
       const pos = at ?? flow.screenToFlowPosition({ x: (box?.left ?? 0) + (box?.width ?? 600) / 2, y: (box?.top ?? 0) + (box?.height ?? 400) / 2 });
-      const snapped = { x: Math.round(pos.x / 20) * 20, y: Math.round(pos.y / 20) * 20 };
-      const r = addComponent(doc, kind, snapped);
+      const r = addComponent(doc, kind, freeSpot(doc, pos));
       commit(r.doc);
       setTimeout(() => select([r.id]), 0);
     },

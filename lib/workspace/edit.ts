@@ -163,3 +163,21 @@ export function withPositions(doc: CircuitDocument): CircuitDocument {
     components: doc.components.map((c) => (c.position ? c : { ...c, position: { x: 40 + (i % 5) * 200, y: 40 + Math.floor(i++ / 5) * 140 } })),
   };
 }
+
+/** The nearest spot to `pos` (on a 20 grid) where a new part does not sit on another one. */
+export function freeSpot(doc: CircuitDocument, pos: { x: number; y: number }): { x: number; y: number } {
+  const snap = (v: number) => Math.round(v / 20) * 20;
+  const taken = doc.components.map((c) => c.position).filter((p): p is { x: number; y: number } => Boolean(p));
+  const clear = (x: number, y: number) => taken.every((p) => Math.abs(p.x - x) >= 160 || Math.abs(p.y - y) >= 120);
+  for (let ring = 0; ring < 12; ring++) {
+    for (let dx = -ring; dx <= ring; dx++) {
+      for (let dy = -ring; dy <= ring; dy++) {
+        if (Math.max(Math.abs(dx), Math.abs(dy)) !== ring) continue;
+        const x = snap(pos.x + dx * 80);
+        const y = snap(pos.y + dy * 60);
+        if (clear(x, y)) return { x, y };
+      }
+    }
+  }
+  return { x: snap(pos.x), y: snap(pos.y) };
+}

@@ -60,11 +60,15 @@ describe("the circuit workspace", () => {
     await page.getByTestId("palette-load").click();
     await page.getByTestId("part-L1").waitFor();
     // Join the new load's + to the battery's + by dragging between their terminal dots.
+    await page.locator(".react-flow__controls-fitview").click();
+    await page.waitForTimeout(400);
     const from = await page.locator('[data-testid="part-L1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
     const to = await page.locator('[data-testid="part-B1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
     await page.mouse.move(from!.x + from!.width / 2, from!.y + from!.height / 2);
     await page.mouse.down();
-    await page.mouse.move(to!.x + to!.width / 2, to!.y + to!.height / 2, { steps: 12 });
+    await page.mouse.move(from!.x + 30, from!.y + 30, { steps: 4 });
+    await page.mouse.move(to!.x + to!.width / 2, to!.y + to!.height / 2, { steps: 16 });
+    await page.waitForTimeout(100);
     await page.mouse.up();
     await expect.poll(() => page.getByTestId("ws-result-row").count()).toBe(rowsBefore + 1);
     await page.getByTestId("part-L1").click();

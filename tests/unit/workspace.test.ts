@@ -3,7 +3,7 @@ import { benchTrainer, pickupCharging } from "@/db/demo-work";
 import { loadCircuit } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
 import { assess, bandOf } from "@/lib/workspace/analysis";
-import { addComponent, addWire, copyItems, pasteItems, removeItems } from "@/lib/workspace/edit";
+import { addComponent, addWire, copyItems, freeSpot, pasteItems, removeItems } from "@/lib/workspace/edit";
 
 describe("workspace edits", () => {
   it("adds parts with the next free id, joins them, and keeps the document valid", () => {
@@ -31,6 +31,15 @@ describe("workspace edits", () => {
     expect(r.ids).toEqual(["B2", "J1"]); // in document order
     expect(r.doc.wires.at(-1)).toMatchObject({ from: "J1.b", to: "B2.pos" });
     expect(loadCircuit(r.doc).ok).toBe(true);
+  });
+});
+
+describe("placing a new part", () => {
+  it("moves off a spot another part takes, and stays put on an empty one", () => {
+    const spot = freeSpot(benchTrainer, { x: 520, y: 100 }); // where the bench battery sits
+    const b1 = benchTrainer.components.find((c) => c.id === "B1")!.position!;
+    expect(Math.abs(spot.x - b1.x) >= 160 || Math.abs(spot.y - b1.y) >= 120).toBe(true);
+    expect(freeSpot(benchTrainer, { x: 2000, y: 2000 })).toEqual({ x: 2000, y: 2000 });
   });
 });
 
