@@ -61,6 +61,31 @@ export async function circuitAccess(db: Db, circuitId: string, userId: string): 
   return rows[0];
 }
 
+function prepareReadCircuit(db: Db) {
+  return db
+    .select({ ...accessColumns(), ...circuitSummary, jobTitle: jobs.title, documentJson: sql<string>`${circuits.document}::text` })
+    .from(circuits)
+    .innerJoin(jobs, eq(jobs.id, circuits.jobId))
+    .innerJoin(organization, eq(organization.id, jobs.organizationId))
+    .leftJoin(member, and(eq(member.organizationId, jobs.organizationId), eq(member.userId, sql.placeholder("userId"))))
+    .leftJoin(editor, eq(editor.id, circuits.updatedBy))
+    .where(eq(circuits.id, sql.placeholder("circuitId")))
+    .limit(1)
+    .prepare("read_circuit_for");
+}
+let readCircuitStatement: ReturnType<typeof prepareReadCircuit> | undefined;
+
+/**
+ * The circuit GET in one statement: where the circuit sits, the caller's role there, and the circuit with its
+ * document as the JSON text PostgreSQL holds (passed through to the answer without a parse).
+ */
+export async function readCircuitFor(db: Db, circuitId: string, userId: string) {
+  // A named prepared statement: the hottest read skips building and planning its SQL on every request.
+  readCircuitStatement ??= prepareReadCircuit(db);
+  const rows = await readCircuitStatement.execute({ circuitId, userId });
+  return rows[0];
+}
+
 export async function readingAccess(db: Db, readingId: string, userId: string): Promise<(WorkAccess & { circuitId: string }) | undefined> {
   const rows = await db
     .select({ ...accessColumns(), circuitId: circuits.id })
@@ -259,21 +284,6 @@ export async function getCircuit(db: Db, circuitId: string) {
     .limit(1);
   const row = rows[0];
   return row ? { ...row, document: row.document as CircuitDocument } : undefined;
-}
-
-/**
- * A circuit with its document as the JSON text PostgreSQL holds, for answers that pass the document through
- * unchanged (no parse and re-serialise of a large document on the hot GET).
- */
-export async function getCircuitRaw(db: Db, circuitId: string) {
-  const rows = await db
-    .select({ ...circuitSummary, jobTitle: jobs.title, documentJson: sql<string>`${circuits.document}::text` })
-    .from(circuits)
-    .innerJoin(jobs, eq(jobs.id, circuits.jobId))
-    .leftJoin(editor, eq(editor.id, circuits.updatedBy))
-    .where(eq(circuits.id, circuitId))
-    .limit(1);
-  return rows[0];
 }
 
 /** Creates a circuit at version 1 with its first revision, and its readings when imported with them. */

@@ -2,7 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { db } from "@/db";
 import { findMembership, listMemberships } from "@/db/queries/organizations";
-import { circuitAccess, jobAccess, readingAccess, type WorkAccess } from "@/db/queries/work";
+import { circuitAccess, jobAccess, readCircuitFor, readingAccess, type WorkAccess } from "@/db/queries/work";
 import { can } from "@/lib/auth/permissions";
 import { currentUser, type Membership, type SignedIn } from "./authed";
 import { ApiError } from "./errors";
@@ -18,7 +18,17 @@ export function workRights(role: string, isOwn: boolean) {
 
 type Resource = "job" | "circuit" | "reading";
 export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string };
-type WorkCtx<TBody> = { req: Request; body: TBody; params: Record<string, string>; user: SignedIn; membership: Membership; target: WorkTarget };
+export type CircuitRecord = NonNullable<Awaited<ReturnType<typeof readCircuitFor>>>;
+type WorkCtx<TBody> = {
+  req: Request;
+  body: TBody;
+  params: Record<string, string>;
+  user: SignedIn;
+  membership: Membership;
+  target: WorkTarget;
+  /** The circuit with its document text, when the route asked for it (one statement with the access check). */
+  circuit?: CircuitRecord;
+};
 
 type Found = WorkAccess & { circuitId?: string; readingId?: string };
 const lookups: Record<Resource, { param: string; find: (id: string, userId: string) => Promise<Found | undefined>; missing: string }> = {
@@ -47,7 +57,7 @@ const lookups: Record<Resource, { param: string; find: (id: string, userId: stri
  * never leak); 403 when they may see it but not change it.
  */
 export function workRoute<S extends z.ZodType | undefined = undefined>(
-  options: { resource: Resource; need: "read" | "edit"; body?: S; maxBytes?: number },
+  options: { resource: Resource; need: "read" | "edit"; body?: S; maxBytes?: number; withCircuit?: boolean },
   handler: (ctx: WorkCtx<S extends z.ZodType ? z.infer<S> : undefined>) => Promise<Response> | Response,
 ) {
   const lookup = lookups[options.resource];
@@ -56,7 +66,8 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
     if (!user) throw new ApiError(401, "signed-out", "Sign in first.");
     const id = ctx.params[lookup.param] ?? "";
     // One statement finds the work and the caller's role in its organisation.
-    const found = id ? await lookup.find(id, user.id) : undefined;
+    const record = id && options.withCircuit ? await readCircuitFor(db, id, user.id) : undefined;
+    const found: Found | undefined = options.withCircuit ? (record ? { ...record, circuitId: id } : undefined) : id ? await lookup.find(id, user.id) : undefined;
     const membership: Membership | undefined =
       found?.role ? { organizationId: found.organizationId, role: found.role, kind: found.organizationKind, name: found.organizationName } : undefined;
     const rights = membership && found ? workRights(membership.role, found.ownerId === user.id) : undefined;
@@ -65,7 +76,7 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
     if (options.need === "edit" && !rights.edit) {
       throw new ApiError(403, "forbidden", `Your role (${membership.role}) in ${membership.name} lets you read this work but not change it.`);
     }
-    return handler({ ...ctx, user, membership, target } as WorkCtx<S extends z.ZodType ? z.infer<S> : undefined>);
+    return handler({ ...ctx, user, membership, target, circuit: record } as WorkCtx<S extends z.ZodType ? z.infer<S> : undefined>);
   });
 }
 

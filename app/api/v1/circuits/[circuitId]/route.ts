@@ -1,20 +1,19 @@
 import { db } from "@/db";
-import { deleteCircuit, getCircuitRaw, saveCircuit } from "@/db/queries/work";
+import { deleteCircuit, saveCircuit } from "@/db/queries/work";
 import { errorResponse } from "@/lib/api/errors";
 import { workRights, workRoute } from "@/lib/api/work";
 import { etagOf, expectedVersion } from "@/lib/api/work-responses";
 import { MAX_WORK_BYTES, replaceCircuitInput } from "@/lib/validators/work";
 
 // GET /api/v1/circuits/:circuitId - the circuit document and its version (ETag "N")
-export const GET = workRoute({ resource: "circuit", need: "read" }, async ({ target, membership, user }) => {
-  const row = await getCircuitRaw(db, target.circuitId!);
-  if (!row) return errorResponse(404, "not-found", "There is no such circuit.");
-  const { documentJson, ...meta } = row;
+export const GET = workRoute({ resource: "circuit", need: "read", withCircuit: true }, async ({ target, membership, user, circuit }) => {
+  if (!circuit) return errorResponse(404, "not-found", "There is no such circuit.");
   const canEdit = workRights(membership.role, target.ownerId === user.id).edit;
+  const meta = { id: circuit.id, jobId: circuit.jobId, name: circuit.name, version: circuit.version, createdAt: circuit.createdAt, updatedAt: circuit.updatedAt, updatedByName: circuit.updatedByName, jobTitle: circuit.jobTitle };
   // The stored document goes out as the database holds it: a large circuit is not parsed and re-serialised here.
-  const body = `{"circuit":${JSON.stringify(meta).slice(0, -1)},"document":${documentJson}},"canEdit":${canEdit}}`;
+  const body = `{"circuit":${JSON.stringify(meta).slice(0, -1)},"document":${circuit.documentJson}},"canEdit":${canEdit}}`;
   return new Response(body, {
-    headers: { "content-type": "application/json", etag: etagOf(row.version), "cache-control": "private, no-cache" },
+    headers: { "content-type": "application/json", etag: etagOf(circuit.version), "cache-control": "private, no-cache" },
   });
 });
 
