@@ -2,11 +2,12 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import { IssueList } from "@/components/jobs/job-detail";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { formatDocument, loadCircuit, stateIdsOf, terminalsOf, type CircuitDocument } from "@/lib/circuit";
+import { checkReadings, type ReadingCheck } from "@/lib/diagnosis/compare";
 import { formatVolts, formatWhen } from "@/lib/format";
 import { staleVersionOf, useCircuit, useCreateReading, useDeleteReading, useReadings, useSaveCircuit, type Circuit } from "@/lib/hooks/circuits";
 import { createReadingInput, type CreateReadingInput } from "@/lib/validators/work";
@@ -152,6 +153,7 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
   const doc = circuit.document;
   const readings = useReadings(circuit.id);
   const remove = useDeleteReading(circuit.id);
+  const checks = useMemo(() => new Map(checkReadings(doc, readings.data ?? []).map((c) => [c.id, c])), [doc, readings.data]);
   return (
     <section className="mt-10" aria-labelledby="readings-h">
       <h2 id="readings-h" className="text-xl font-semibold">
@@ -159,7 +161,7 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
       </h2>
       <p className="mt-1 text-sm text-graphite-700">Red lead on the first point, black on the second, in the operating state named. Drops mean something only with current flowing.</p>
       <div className={`${box} mt-3 overflow-x-auto`}>
-        <table className="w-full min-w-[760px] text-sm" data-testid="readings-table">
+        <table className="w-full min-w-[1000px] text-sm" data-testid="readings-table">
           <thead className="bg-graphite-100/60">
             <tr>
               <th className={th}>State</th>
@@ -167,6 +169,8 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
               <th className={th}>Black lead</th>
               <th className={`${th} text-right`}>Reading</th>
               <th className={`${th} text-right`}>Clamp</th>
+              <th className={`${th} text-right`}>Model</th>
+              <th className={th}>Against the model</th>
               <th className={th}>Note</th>
               <th className={th}>Taken</th>
               {canEdit ? <th className={th}><span className="sr-only">Remove</span></th> : null}
@@ -180,6 +184,12 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
                 <td className={td}>{terminalLabel(doc, r.negative)}</td>
                 <td className={`${td} whitespace-nowrap text-right font-semibold tabular-nums`}>{formatVolts(r.value, r.unit)}</td>
                 <td className={`${td} whitespace-nowrap text-right tabular-nums`}>{r.currentA !== null ? `${r.currentA} A` : "-"}</td>
+                <td className={`${td} whitespace-nowrap text-right tabular-nums text-graphite-700`}>
+                  {checks.get(r.id)?.expectedV !== undefined ? formatVolts(checks.get(r.id)!.expectedV!) : "-"}
+                </td>
+                <td className={`${td} min-w-56`} data-testid="reading-verdict">
+                  <Verdict check={checks.get(r.id)} />
+                </td>
                 <td className={td}>{r.note}</td>
                 <td className={`${td} text-graphite-700`}>
                   {formatWhen(r.takenAt)}
@@ -208,6 +218,39 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
         </>
       ) : null}
     </section>
+  );
+}
+
+const mOhm = (ohm: number) => `${(ohm * 1000).toFixed(ohm < 0.01 ? 2 : 1)} mΩ`;
+
+/** A reading's verdict against the model, in words, and what it says about the resistance between the probes. */
+function Verdict({ check }: { check: ReadingCheck | undefined }) {
+  if (!check) return null;
+  const word = {
+    "as-predicted": <span className="font-semibold text-within">as the model predicts</span>,
+    higher: <span className="font-semibold text-over">▲ higher than predicted</span>,
+    lower: <span className="font-semibold text-caution">▼ lower than predicted</span>,
+    "no-model": <span className="text-graphite-500">no prediction: {check.reason}</span>,
+  }[check.verdict];
+  const p = check.path;
+  return (
+    <div>
+      {word}
+      {check.differenceV !== undefined && check.verdict !== "as-predicted" ? <span className="text-graphite-700"> ({check.differenceV > 0 ? "+" : ""}{formatVolts(check.differenceV)})</span> : null}
+      {p ? (
+        <p className="mt-0.5 text-xs text-graphite-700">
+          {p.ids.join(", ")}: model {mOhm(p.expectedOhm)}, the reading gives {mOhm(p.impliedOhm)} at {p.currentA.toFixed(1)} A ({p.currentFrom === "clamp" ? "clamp" : "model's current"})
+          {p.excessOhm > 0.00005 ? `: ${mOhm(p.excessOhm)} extra, ${p.excessHeatW.toFixed(1)} W of heat` : ""}
+        </p>
+      ) : check.pathNote && check.verdict !== "no-model" ? (
+        <p className="mt-0.5 text-xs text-graphite-500">{check.pathNote}</p>
+      ) : null}
+      {p?.heatWarning ? (
+        <p className="mt-0.5 text-xs font-semibold text-over" role="note">
+          {p.heatWarning}
+        </p>
+      ) : null}
+    </div>
   );
 }
 

@@ -83,6 +83,10 @@ describe("jobs, circuits, readings and history in the browser", () => {
     expect(before).toBeGreaterThanOrEqual(6);
     expect(await page.getByTestId("readings-table").textContent()).toContain("Engine block (GE.t)");
     expect(await page.getByTestId("parts-table").textContent()).toContain("Alternator mounting bracket");
+    // Each reading is set against the solved circuit; block-to-case spans the bracket and its two links.
+    const verdicts = await page.getByTestId("reading-verdict").allTextContents();
+    expect(verdicts.some((v) => v.includes("W5, JAC, W4"))).toBe(true);
+    expect(verdicts.some((v) => /as the model predicts|than predicted/.test(v))).toBe(true);
 
     await page.getByTestId("reading-state").selectOption("charge");
     await page.getByTestId("reading-positive").selectOption("B1.pos");
