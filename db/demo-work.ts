@@ -209,7 +209,7 @@ export const demoJobs: DemoJob[] = [
           { stateId: "charge", positive: "A1.out", negative: "B1.pos", value: 0.118, unit: "V", currentA: 49, note: "Positive side", by: "usr_demo_tech", minutesAgo: 2875 },
           { stateId: "charge", positive: "B1.neg", negative: "A1.case", value: 1.69, unit: "V", currentA: 49, note: "Ground side: far over", by: "usr_demo_tech", minutesAgo: 2870 },
           { stateId: "charge", positive: "GE.t", negative: "A1.case", value: 1.68, unit: "V", currentA: 49, note: "Block to case: the bracket", by: "usr_demo_tech", minutesAgo: 2865 },
-          { stateId: "charge", positive: "B1.neg", negative: "GE.t", value: 12, unit: "mV", currentA: 49, note: "Battery - to block: fine", by: "usr_demo_tech", minutesAgo: 2860 },
+          { stateId: "charge", positive: "B1.neg", negative: "GE.t", value: 12, unit: "mV", currentA: 15, note: "Battery - to block: fine (clamp on the battery ground cable)", by: "usr_demo_tech", minutesAgo: 2860 },
         ],
       },
     ],

@@ -242,8 +242,19 @@ function Verdict({ check }: { check: ReadingCheck | undefined }) {
           {p.ids.join(", ")}: model {mOhm(p.expectedOhm)}, the reading gives {mOhm(p.impliedOhm)} at {p.currentA.toFixed(1)} A ({p.currentFrom === "clamp" ? "clamp" : "model's current"})
           {p.excessOhm > 0.00005 ? `: ${mOhm(p.excessOhm)} extra, ${p.excessHeatW.toFixed(1)} W of heat` : ""}
         </p>
-      ) : check.pathNote && check.verdict !== "no-model" ? (
+      ) : check.pathNote && check.verdict !== "no-model" && !check.battery ? (
         <p className="mt-0.5 text-xs text-graphite-500">{check.pathNote}</p>
+      ) : null}
+      {check.battery?.kind === "rest" ? (
+        <p className="mt-0.5 text-xs text-graphite-700" data-testid="soc">
+          At rest: about {Math.round(check.battery.socPercent)} % charged (BCI table, flooded lead-acid near 27 °C).
+          {check.battery.socPercent < 75 ? " Charge it before testing further: a low battery misleads every other test." : ""}
+        </p>
+      ) : check.battery?.kind === "charging" ? (
+        <p className={`mt-0.5 text-xs ${check.battery.within ? "text-graphite-700" : "font-semibold text-over"}`} data-testid="charging-window">
+          Charging voltage {check.battery.within ? "inside" : "outside"} the usual {check.battery.window[0].toFixed(1)} to {check.battery.window[1].toFixed(1)} V
+          (common practice; the maker&rsquo;s figure comes first).
+        </p>
       ) : null}
       {p?.heatWarning ? (
         <p className="mt-0.5 text-xs font-semibold text-over" role="note">

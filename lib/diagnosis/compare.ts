@@ -1,5 +1,6 @@
 import { CIRCUIT_DEFAULTS, stateIdsOf, type CircuitDocument } from "@/lib/circuit";
 import { solveCircuit, type SolveResult } from "@/lib/solver";
+import { chargingWindowV, stateOfChargePercent } from "./limits";
 
 /**
  * How far a reading may sit from the model and still count as "as predicted": 10 % of the prediction or 20 mV,
@@ -41,6 +42,8 @@ export type ReadingCheck = {
   path?: PathFigures;
   /** Why no resistance could be worked out along the probes' path. */
   pathNote?: string;
+  /** Across a battery's own posts: its state of charge at rest, or the charging voltage against the window. */
+  battery?: { kind: "rest"; socPercent: number } | { kind: "charging"; window: [number, number]; within: boolean };
 };
 
 type Edge = { id: string; a: string; b: string; ohm: number; current: number };
@@ -121,6 +124,20 @@ export function checkReadings(doc: CircuitDocument, readings: Reading[]): Readin
     const allowed = Math.max(READING_TOLERANCE.minimumV, READING_TOLERANCE.fraction * Math.abs(expectedV));
     const verdict = Math.abs(differenceV) <= allowed ? "as-predicted" : Math.abs(measuredV) > Math.abs(expectedV) ? "higher" : "lower";
     const check: ReadingCheck = { id: r.id, measuredV, expectedV, differenceV, verdict };
+
+    const [pid, pt] = r.positive.split(".");
+    const [nid, nt] = r.negative.split(".");
+    const battery = pid === nid && pt === "pos" && nt === "neg" ? doc.components.find((c) => c.id === pid && c.kind === "battery") : undefined;
+    if (battery) {
+      const charging = Object.values(result.components).some((c) => c.mode === "regulating" || c.mode === "current-limit");
+      const batteryI = result.components[battery.id]?.current ?? 0;
+      if (charging) {
+        const window = chargingWindowV(doc.systemVoltage);
+        check.battery = { kind: "charging", window, within: measuredV >= window[0] && measuredV <= window[1] };
+      } else if (Math.abs(batteryI) < 1) {
+        check.battery = { kind: "rest", socPercent: stateOfChargePercent(measuredV, doc.systemVoltage) };
+      }
+    }
 
     const steps = findPath(passiveEdges(doc, result, r.stateId), r.positive, r.negative);
     if (!steps || !steps.length) {

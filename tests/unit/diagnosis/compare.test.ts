@@ -52,3 +52,28 @@ describe("readings against the model", () => {
     expect(across.path).toBeUndefined();
   });
 });
+
+describe("battery readings", () => {
+  it("reads a rested battery's state of charge from the BCI table, and a 24 V pair as two 12 V batteries", async () => {
+    const { stateOfChargePercent } = await import("@/lib/diagnosis/limits");
+    // Battery Council International table (flooded lead-acid 12 V, rested, about 27 C): 12.65 V 100 %, 12.45 V 75 %,
+    // 12.24 V 50 %, 12.06 V 25 %, 11.89 V 0 %; between points by straight lines (Ampwright's reading of the table).
+    expect(stateOfChargePercent(12.45, 12)).toBeCloseTo(75, 9);
+    expect(stateOfChargePercent(12.24, 12)).toBeCloseTo(50, 9);
+    expect(stateOfChargePercent(12.55, 12)).toBeCloseTo(87.5, 9);
+    expect(stateOfChargePercent(11.5, 12)).toBe(0);
+    expect(stateOfChargePercent(12.9, 12)).toBe(100);
+    expect(stateOfChargePercent(24.9, 24)).toBeCloseTo(75, 9);
+  });
+
+  it("gives the state of charge at rest and the charging window while the alternator charges", () => {
+    const [rest, charging] = checkReadings(pickupCharging, [
+      reading({ id: "a", stateId: "base", positive: "B1.pos", negative: "B1.neg", value: 12.44 }),
+      reading({ id: "b", stateId: "charge", positive: "B1.pos", negative: "B1.neg", value: 12.58 }),
+    ]);
+    // 12.44 V sits between BCI's 12.24 V (50 %) and 12.45 V (75 %): 50 + 25 x 0.20 / 0.21 = 73.8 %.
+    expect(rest.battery).toEqual({ kind: "rest", socPercent: expect.closeTo(50 + (25 * 0.2) / 0.21, 6) });
+    // Common practice: 13.5 to 14.8 V while charging a 12 V system; 12.58 V is under it.
+    expect(charging.battery).toEqual({ kind: "charging", window: [13.5, 14.8], within: false });
+  });
+});
