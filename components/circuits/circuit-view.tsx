@@ -8,6 +8,7 @@ import { IssueList } from "@/components/jobs/job-detail";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { formatDocument, loadCircuit, stateIdsOf, terminalsOf, type CircuitDocument } from "@/lib/circuit";
 import { checkReadings, type ReadingCheck } from "@/lib/diagnosis/compare";
+import { locateFault } from "@/lib/diagnosis/locate";
 import { formatVolts, formatWhen } from "@/lib/format";
 import { staleVersionOf, useCircuit, useCreateReading, useDeleteReading, useReadings, useSaveCircuit, type Circuit } from "@/lib/hooks/circuits";
 import { createReadingInput, type CreateReadingInput } from "@/lib/validators/work";
@@ -209,6 +210,7 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
         {readings.data?.length === 0 ? <p className="px-4 py-5 text-graphite-700" data-testid="readings-empty">No readings yet.{canEdit ? " Record the first one below." : ""}</p> : null}
       </div>
       <IssueList error={remove.error} />
+      <Suspects doc={doc} readings={readings.data ?? []} />
       {canEdit ? (
         <>
           {doc.components.length ? <ReadingForm circuit={circuit} /> : null}
@@ -218,6 +220,42 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
         </>
       ) : null}
     </section>
+  );
+}
+
+/** Where the readings put resistance the model does not have, ranked, with the next point to probe. */
+function Suspects({ doc, readings }: { doc: CircuitDocument; readings: Parameters<typeof locateFault>[1] }) {
+  const loc = useMemo(() => locateFault(doc, readings), [doc, readings]);
+  if (!loc.used.length) return null;
+  const name = (id: string) => doc.components.find((c) => c.id === id)?.label ?? doc.wires.find((w) => w.id === id)?.label ?? id;
+  return (
+    <div className="mt-4 rounded-lg border border-graphite-100 bg-paper-raised p-4" data-testid="suspects">
+      <h3 className="font-semibold">Where the readings put extra resistance</h3>
+      <p className="text-xs text-graphite-700">
+        From the {loc.used.length} {loc.used.length === 1 ? "reading" : "readings"} that span one current through cables and connections, by least squares with no
+        negative resistance; the model is the circuit as drawn.
+      </p>
+      {loc.suspects.length === 0 ? (
+        <p className="mt-2 text-sm text-within">None: these readings fit the circuit as drawn.</p>
+      ) : (
+        <ol className="mt-2 list-decimal space-y-1 pl-5 text-sm">
+          {loc.suspects.map((s) => (
+            <li key={s.id}>
+              <span className="font-semibold">
+                {s.id} ({name(s.id)})
+              </span>
+              : about {mOhm(s.extraOhm)} more than drawn, from {s.readings} {s.readings === 1 ? "reading" : "readings"}
+              {s.twins.length ? <span className="text-graphite-700"> (cannot yet be told apart from {s.twins.join(", ")})</span> : null}
+            </li>
+          ))}
+        </ol>
+      )}
+      {loc.probeNext ? (
+        <p className="mt-2 text-sm" data-testid="probe-next">
+          <span className="font-semibold">Probe next:</span> {loc.probeNext.why}
+        </p>
+      ) : null}
+    </div>
   );
 }
 
