@@ -1,5 +1,6 @@
 "use client";
 
+import { Unavailable } from "@/components/ui/unavailable";
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useMemo, useState } from "react";
@@ -23,17 +24,7 @@ const td = "px-3 py-2 align-top";
 export function CircuitView({ id }: { id: string }) {
   const { data, error, isPending } = useCircuit(id);
   if (isPending) return <p className="text-graphite-500">Loading the circuit...</p>;
-  if (error) {
-    return (
-      <div role="alert" data-testid="circuit-missing">
-        <h1 className="text-2xl font-semibold">This circuit cannot be shown</h1>
-        <p className="mt-2 text-graphite-700">{error.message}</p>
-        <Link href="/jobs" className="mt-4 inline-block font-medium text-copper-700 underline">
-          Back to the jobs list
-        </Link>
-      </div>
-    );
-  }
+  if (error) return <Unavailable title="This circuit cannot be shown" message={error.message} testId="circuit-missing" />;
   const { circuit, canEdit } = data;
   const doc = circuit.document;
   return (

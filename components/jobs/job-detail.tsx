@@ -1,5 +1,6 @@
 "use client";
 
+import { Unavailable } from "@/components/ui/unavailable";
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
@@ -39,17 +40,7 @@ export function IssueList({ error }: { error: { message: string; issues?: ApiCli
 export function JobDetail({ id }: { id: string }) {
   const { data, error, isPending } = useJob(id);
   if (isPending) return <p className="text-graphite-500">Loading the job...</p>;
-  if (error) {
-    return (
-      <div role="alert" data-testid="job-missing">
-        <h1 className="text-2xl font-semibold">This job cannot be shown</h1>
-        <p className="mt-2 text-graphite-700">{error.message}</p>
-        <Link href="/jobs" className="mt-4 inline-block font-medium text-copper-700 underline">
-          Back to the jobs list
-        </Link>
-      </div>
-    );
-  }
+  if (error) return <Unavailable title="This job cannot be shown" message={error.message} testId="job-missing" />;
   const { job, circuits } = data;
   const readings = circuits.reduce((n, c) => n + c.readingCount, 0);
   return (

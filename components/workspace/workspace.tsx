@@ -1,5 +1,6 @@
 "use client";
 
+import { Unavailable } from "@/components/ui/unavailable";
 import {
   applyNodeChanges,
   Background,
@@ -59,17 +60,7 @@ function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
 /** The circuit workspace: load, edit on the canvas with undo, solve live, and save each change as a new version. */
 export function Workspace({ circuitId }: { circuitId: string }) {
   const { data, error } = useCircuit(circuitId);
-  if (error) {
-    return (
-      <div className="mx-auto max-w-3xl px-4 py-10" role="alert">
-        <h1 className="text-2xl font-semibold">This circuit cannot be opened</h1>
-        <p className="mt-2">{error.message}</p>
-        <Link href="/jobs" className="mt-4 inline-block font-medium text-copper-700 underline">
-          Back to the jobs list
-        </Link>
-      </div>
-    );
-  }
+  if (error) return <Unavailable title="This circuit cannot be opened" message={error.message} className="mx-auto max-w-3xl px-4 py-10" />;
   if (!data) return <p className="px-4 py-10 text-graphite-500">Opening the circuit...</p>;
   return (
     <ReactFlowProvider>
