@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { INSULATION_TYPES, sizeCable, type SizingAnswer, type SizingRequest } from "@/lib/conductors";
 import { parseQuantity } from "@/lib/units";
 
@@ -79,9 +79,52 @@ function parse(i: Inputs): Parsed {
 
 const input = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2";
 
+/** The choices a URL may set; anything else in it is ignored. Text fields take any short text (parse judges it). */
+const CHOICES: Partial<Record<keyof Inputs, readonly string[]>> = {
+  systemVoltage: ["12", "24"],
+  circuitClass: ["critical", "non-critical"],
+  zone: ["cabin", "engine", "underbody"],
+  insulation: INSULATION_TYPES.map((t) => t.id),
+  family: ["awg", "metric"],
+  returnPath: ["two-wire", "chassis"],
+  duty: ["continuous", "intermittent"],
+};
+
+/** The inputs a shared or bookmarked address carries, over the defaults. */
+export function inputsFromQuery(search: string): Inputs {
+  const q = new URLSearchParams(search);
+  const next = { ...initial };
+  for (const key of Object.keys(initial) as (keyof Inputs)[]) {
+    const value = q.get(key);
+    if (value === null || value.length > 40) continue;
+    const allowed = CHOICES[key];
+    if (allowed && !allowed.includes(value)) continue;
+    (next as Record<string, string>)[key] = value;
+  }
+  return next;
+}
+
+/** Only what differs from the defaults goes into the address, so a shared link stays short. */
+export function queryFromInputs(v: Inputs): string {
+  const q = new URLSearchParams();
+  for (const key of Object.keys(initial) as (keyof Inputs)[]) if (v[key] !== initial[key]) q.set(key, v[key]);
+  const s = q.toString();
+  return s ? `?${s}` : "";
+}
+
 /** The upfitter's quick cable and fuse sizing: computed in the browser as the values are typed. */
 export function SizingCalculator() {
   const [v, setV] = useState<Inputs>(initial);
+  // The address carries the inputs: read once after hydration, then kept up to date as they change.
+  const [loaded, setLoaded] = useState(false);
+  useEffect(() => {
+    // eslint-disable-next-line react-hooks/set-state-in-effect -- the page is prerendered; the address is only known here
+    setV(inputsFromQuery(window.location.search));
+    setLoaded(true);
+  }, []);
+  useEffect(() => {
+    if (loaded) window.history.replaceState(null, "", `${window.location.pathname}${queryFromInputs(v)}`);
+  }, [v, loaded]);
   const parsed = useMemo(() => parse(v), [v]);
   const answer: SizingAnswer | null = parsed.ok ? sizeCable(parsed.request) : null;
   const set = (key: keyof Inputs) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV((old) => ({ ...old, [key]: e.target.value }));

@@ -29,6 +29,20 @@ describe("the sizing page", () => {
     await page.close();
   });
 
+  it("keeps the inputs in the address, so a result can be bookmarked or sent", async () => {
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
+    // The 3 m case worked above: 20 A over 3 m one way gives 8 AWG.
+    await page.goto(`${baseUrl}/size?length=3%20m&zone=nowhere`, { waitUntil: "networkidle" });
+    await expect(page.getByTestId("size-length").inputValue()).resolves.toBe("3 m");
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "8 AWG");
+    // An unknown choice in the address is ignored; the default stays.
+    await expect(page.getByTestId("size-zone").inputValue()).resolves.toBe("cabin");
+    await page.getByTestId("size-current").fill("30 A");
+    await page.waitForFunction(() => new URLSearchParams(location.search).get("current") === "30 A");
+    expect(new URL(page.url()).searchParams.get("length")).toBe("3 m");
+    await page.close();
+  });
+
   it("fits a phone without sideways scrolling", async () => {
     const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
