@@ -43,6 +43,25 @@ describe("the sizing page", () => {
     await page.close();
   });
 
+  it("works from the keyboard alone at a phone's width", async () => {
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
+    await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
+    const focused = () => page.evaluate(() => document.activeElement?.getAttribute("data-testid"));
+    for (let i = 0; i < 60 && (await focused()) !== "size-current"; i++) await page.keyboard.press("Tab");
+    expect(await focused()).toBe("size-current");
+    await page.keyboard.press("Control+A");
+    await page.keyboard.type("30 A");
+    await page.keyboard.press("Tab");
+    expect(await focused()).toBe("size-length");
+    await page.keyboard.press("Control+A");
+    await page.keyboard.type("3 m");
+    // 30 A over 3 m one way (6 m of copper), 3 % of 12 V = 0.36 V. At 30 C with the 1.02 stranding factor (NBS
+    // Handbook 100 copper): 8 AWG 2.185 mOhm/m -> 30 x 6 x 2.185 mOhm = 0.393 V (too much); 6 AWG 1.374 mOhm/m ->
+    // 0.247 V (fits).
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "6 AWG");
+    await page.close();
+  });
+
   it("fits a phone without sideways scrolling", async () => {
     const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
