@@ -168,6 +168,12 @@ describe("circuits: versions, If-Match and history", () => {
     expect(one.revision.document.name).toBe(pickupCharging.name);
     expect((await callRoute(h(revisionRoute.GET), { params: { circuitId: id, version: "9" }, cookie: tech })).status).toBe(404);
 
+    const badTag = new Request("http://127.0.0.1:3100/api/v1/circuits/x/restore", {
+      method: "POST",
+      headers: { "content-type": "application/json", cookie: tech, "if-match": "W/1" },
+      body: JSON.stringify({ version: 1 }),
+    });
+    expect((await (restoreRoute.POST as unknown as Handler)(badTag, { params: Promise.resolve({ circuitId: id }) })).status).toBe(400);
     const restored = await callRoute(h(restoreRoute.POST), { json: { version: 1 }, params: { circuitId: id }, cookie: tech });
     expect(restored.status).toBe(200);
     expect((await restored.json()).version).toBe(3);

@@ -2,7 +2,7 @@ import { db } from "@/db";
 import { getCircuit, getRevision, saveCircuit } from "@/db/queries/work";
 import { ApiError } from "@/lib/api/errors";
 import { workRoute } from "@/lib/api/work";
-import { etagOf } from "@/lib/api/work-responses";
+import { etagOf, expectedVersion } from "@/lib/api/work-responses";
 import { loadCircuit } from "@/lib/circuit";
 import { restoreCircuitInput } from "@/lib/validators/work";
 
@@ -13,9 +13,8 @@ export const POST = workRoute({ resource: "circuit", need: "edit", body: restore
   // An old revision may be of an older document version: bring it up to date as an import would.
   const loaded = loadCircuit(revision.document);
   if (!loaded.ok) throw new ApiError(422, "invalid-circuit", `Version ${body.version} can no longer be read; see issues.`, loaded.issues);
-  const ifMatch = req.headers.get("if-match");
-  const current = await getCircuit(db, target.circuitId!);
-  const expected = ifMatch ? Number(/\d+/.exec(ifMatch)?.[0] ?? NaN) : current!.version;
+  // If-Match is optional here (a restore loses nothing), but when sent it is read as for a save.
+  const expected = req.headers.get("if-match") ? expectedVersion(req) : (await getCircuit(db, target.circuitId!))!.version;
   const outcome = await saveCircuit(db, {
     circuitId: target.circuitId!,
     organizationId: target.organizationId,
