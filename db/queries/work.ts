@@ -61,9 +61,11 @@ export async function circuitAccess(db: Db, circuitId: string, userId: string): 
   return rows[0];
 }
 
-function prepareReadCircuit(db: Db) {
+const readCircuitColumns = () => ({ ...accessColumns(), ...circuitSummary, jobTitle: jobs.title });
+
+function prepareReadCircuit(db: Db, withDocument: boolean) {
   return db
-    .select({ ...accessColumns(), ...circuitSummary, jobTitle: jobs.title, documentJson: sql<string>`${circuits.document}::text` })
+    .select({ ...readCircuitColumns(), documentJson: withDocument ? sql<string>`${circuits.document}::text` : sql<string>`null` })
     .from(circuits)
     .innerJoin(jobs, eq(jobs.id, circuits.jobId))
     .innerJoin(organization, eq(organization.id, jobs.organizationId))
@@ -71,19 +73,45 @@ function prepareReadCircuit(db: Db) {
     .leftJoin(editor, eq(editor.id, circuits.updatedBy))
     .where(eq(circuits.id, sql.placeholder("circuitId")))
     .limit(1)
-    .prepare("read_circuit_for");
+    .prepare(withDocument ? "read_circuit_for" : "read_circuit_meta_for");
 }
 let readCircuitStatement: ReturnType<typeof prepareReadCircuit> | undefined;
+let readMetaStatement: ReturnType<typeof prepareReadCircuit> | undefined;
 
 /**
- * The circuit GET in one statement: where the circuit sits, the caller's role there, and the circuit with its
- * document as the JSON text PostgreSQL holds (passed through to the answer without a parse).
+ * The JSON text of documents already read, by circuit and version. A saved version never changes (a save or a
+ * restore makes a new one), so an entry is right for as long as it is kept; the oldest go past a size cap.
+ */
+const documentTexts = new Map<string, string>();
+let documentTextChars = 0;
+export const DOCUMENT_CACHE_CHARS = 32 * 1024 * 1024;
+
+function rememberDocument(key: string, text: string) {
+  if (text.length > DOCUMENT_CACHE_CHARS / 4) return;
+  documentTexts.set(key, text);
+  documentTextChars += text.length;
+  for (const [k, v] of documentTexts) {
+    if (documentTextChars <= DOCUMENT_CACHE_CHARS) break;
+    documentTexts.delete(k);
+    documentTextChars -= v.length;
+  }
+}
+
+/**
+ * The circuit GET: where the circuit sits, the caller's role there, and the circuit with its document as the JSON
+ * text PostgreSQL holds (passed through to the answer without a parse). A version read before is not fetched again.
  */
 export async function readCircuitFor(db: Db, circuitId: string, userId: string) {
-  // A named prepared statement: the hottest read skips building and planning its SQL on every request.
-  readCircuitStatement ??= prepareReadCircuit(db);
-  const rows = await readCircuitStatement.execute({ circuitId, userId });
-  return rows[0];
+  // Named prepared statements: the hottest read skips building and planning its SQL on every request.
+  readMetaStatement ??= prepareReadCircuit(db, false);
+  const [meta] = await readMetaStatement.execute({ circuitId, userId });
+  if (!meta) return undefined;
+  const known = documentTexts.get(`${circuitId}@${meta.version}`);
+  if (known !== undefined) return { ...meta, documentJson: known };
+  readCircuitStatement ??= prepareReadCircuit(db, true);
+  const [row] = await readCircuitStatement.execute({ circuitId, userId });
+  if (row) rememberDocument(`${circuitId}@${row.version}`, row.documentJson);
+  return row;
 }
 
 export async function readingAccess(db: Db, readingId: string, userId: string): Promise<(WorkAccess & { circuitId: string }) | undefined> {
