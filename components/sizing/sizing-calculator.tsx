@@ -3,6 +3,7 @@
 import { useEffect, useMemo, useState } from "react";
 import { INSULATION_TYPES, sizeCable, type SizingAnswer, type SizingRequest } from "@/lib/conductors";
 import { parseQuantity } from "@/lib/units";
+import { DropChart } from "./drop-chart";
 
 type Inputs = {
   systemVoltage: string;
@@ -271,6 +272,7 @@ export function SizingCalculator() {
                 factors.
               </p>
             </div>
+            <DropChart answer={answer} />
             <ul className="list-disc space-y-1 pl-5 text-sm text-graphite-700">
               {answer.notes.map((n) => (
                 <li key={n}>{n}</li>

@@ -53,6 +53,10 @@ export type SizingAnswer = {
   reason: string;
   closest: Candidate | null;
   notes: string[];
+  /** The drop limit the candidates were judged against, V. */
+  limitV: number;
+  /** What the drop is made of, so it can be redrawn for other lengths (see dropAtLength). */
+  basis: { currentA: number; lengthM: number; returnResistanceOhm: number };
 };
 
 /** Marine standard (ABYC E-11) drop limits: 3 % for critical circuits, 10 % for others. */
@@ -86,6 +90,7 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
     req.maxDropV ?? ((req.maxDropPercent ?? DROP_LIMIT_PERCENT[circuitClass]) / 100) * req.systemVoltage;
   const duty = req.duty ?? { kind: "continuous" };
   const notes: string[] = [];
+  const basis = { currentA: req.currentA, lengthM: req.lengthM, returnResistanceOhm: returnR };
 
   let continuousA = req.currentA;
   if (duty.kind === "intermittent") {
@@ -152,6 +157,8 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
     else if (last.ampacityA < wanted.ratingA && failing.has("protection")) parts.push(`a ${wanted.ratingA} A device needs a cable that carries at least ${wanted.ratingA} A after derating`);
     return {
       status: "no-size-fits",
+      limitV,
+      basis,
       recommended: null,
       candidates,
       protection: null,
@@ -174,6 +181,8 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
   };
   return {
     status: "ok",
+    limitV,
+    basis,
     recommended: chosen,
     candidates,
     protection,
@@ -183,4 +192,23 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
     closest: null,
     notes,
   };
+}
+
+/**
+ * The drop a candidate of an answer would give over another one-way length, everything else kept: the cable part
+ * scales with the length, the chassis return does not.
+ */
+export function dropAtLength(answer: Pick<SizingAnswer, "basis">, candidate: Pick<Candidate, "resistanceOhm">, lengthM: number): number {
+  const { currentA, lengthM: basisLength, returnResistanceOhm } = answer.basis;
+  const cableOhm = candidate.resistanceOhm - returnResistanceOhm;
+  return currentA * (returnResistanceOhm + (basisLength > 0 ? (cableOhm * lengthM) / basisLength : 0));
+}
+
+/** The longest one-way run a candidate may have before its drop reaches the answer's limit, m (Infinity if never). */
+export function longestRun(answer: Pick<SizingAnswer, "basis" | "limitV">, candidate: Pick<Candidate, "resistanceOhm">): number {
+  const { currentA, lengthM, returnResistanceOhm } = answer.basis;
+  const spare = answer.limitV - currentA * returnResistanceOhm;
+  if (spare <= 0) return 0;
+  const perMetre = (candidate.resistanceOhm - returnResistanceOhm) / lengthM;
+  return perMetre > 0 ? spare / (currentA * perMetre) : Infinity;
 }

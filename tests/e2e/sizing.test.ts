@@ -29,6 +29,40 @@ describe("the sizing page", () => {
     await page.close();
   });
 
+  it("sizes a fictional winch install on intermittent duty, with the drop plotted against length", async () => {
+    const page = await browser().newPage({ viewport: { width: 1440, height: 1100 } });
+    const watch = watchPage(page);
+    await page.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
+    await page.getByTestId("size-current").fill("250 A");
+    await page.getByTestId("size-length").fill("5 m");
+    await page.getByTestId("size-circuitClass").selectOption("non-critical");
+    await page.getByTestId("size-zone").selectOption("underbody");
+    await page.getByTestId("size-insulation").selectOption("SGX");
+    await page.getByTestId("size-duty").selectOption("intermittent");
+    await page.getByTestId("size-onTime").fill("1 min");
+    await page.getByTestId("size-period").fill("10 min");
+    // Worked by hand. Limit: 10 % of 12 V = 1.2 V (ABYC E-11 non-critical). Underbody ambient 40 C; copper at 40 C
+    // is R20 x (1 + 0.00393 x 20) = x 1.0786, and x 1.02 for stranding (NBS Handbook 100: 2 AWG 0.1563, 1 AWG 0.1239
+    // ohm/kft at 20 C). 2 AWG: 0.1563 / 304.8 x 1.0786 x 1.02 = 0.5641 mOhm/m; 10 m of copper x 250 A = 1.410 V (too
+    // much). 1 AWG: 0.4472 mOhm/m -> 1.118 V (fits). Heat: 250 A x sqrt(60 s / 600 s) = 79.1 A duty-equivalent; 1 AWG
+    // at 125 C is 265 A in 33 CFR 183.425 Table 5, x sqrt((125 - 40) / (125 - 30)) = 250.7 A. Fuse: 125 % of 79.1 A =
+    // 98.8 A, the next bolt-in step is 100 A (common practice steps).
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "1 AWG");
+    await expect(page.getByTestId("size-protection").textContent()).resolves.toBe("100 A bolt-in fuse");
+    await expect(page.getByTestId("size-reason").textContent()).resolves.toMatch(/voltage drop limit of 1\.2 V decided it/);
+    // The plot shows the sizes around the answer and where each reaches the limit: 1.2 V / (250 A x 2 x 0.4472
+    // mOhm/m) = 5.37 m one way for 1 AWG.
+    await expect(page.getByTestId("size-chart").locator("svg.recharts-surface").count()).resolves.toBeGreaterThan(0);
+    await expect(page.getByTestId("size-chart-summary").textContent()).resolves.toMatch(/1 AWG reaches the limit at 5\.4 m/);
+    await screenshot(page, "sizing-winch-1440");
+    // 4 m one way: 2 AWG drops 250 A x 8 m x 0.5641 mOhm/m = 1.128 V, under 1.2 V, so the answer falls a size.
+    await page.getByTestId("size-length").fill("4 m");
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "2 AWG");
+    await expect(page.getByTestId("size-protection").textContent()).resolves.toBe("100 A bolt-in fuse");
+    expect(watch.problems).toEqual([]);
+    await page.close();
+  });
+
   it("keeps the inputs in the address, so a result can be bookmarked or sent", async () => {
     const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     // The 3 m case worked above: 20 A over 3 m one way gives 8 AWG.

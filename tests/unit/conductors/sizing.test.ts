@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { AWG_SIZES, STRANDING_FACTOR, sizeCable, type SizingRequest } from "@/lib/conductors";
+import { AWG_SIZES, dropAtLength, longestRun, STRANDING_FACTOR, sizeCable, type SizingRequest } from "@/lib/conductors";
 
 const FT = 0.3048;
 
@@ -157,5 +157,36 @@ describe("sizeCable properties", () => {
       }),
       { numRuns: 300 },
     );
+  });
+});
+
+describe("the drop-against-length curve", () => {
+  it("redraws each candidate's drop at its own length, scales the cable part and keeps the chassis return", () => {
+    fc.assert(
+      fc.property(request, fc.double({ min: 0, max: 40, noNaN: true }), fc.double({ min: 0, max: 0.02, noNaN: true }), (r, length, returnR) => {
+        const a = sizeCable({ ...r, returnPath: returnR > 0 ? "chassis" : "two-wire", returnResistanceOhm: returnR });
+        for (const c of a.candidates) {
+          // Arithmetic: at the request's own length the curve passes through the table's value.
+          expect(dropAtLength(a, c, r.lengthM)).toBeCloseTo(c.dropV, 9);
+          // Arithmetic: drop = I (R_return + r_cable L); at zero length only the return is left.
+          expect(dropAtLength(a, c, 0)).toBeCloseTo(r.currentA * returnR, 9);
+          const slope = (c.dropV - r.currentA * returnR) / r.lengthM;
+          expect(dropAtLength(a, c, length)).toBeCloseTo(r.currentA * returnR + slope * length, 6);
+        }
+      }),
+      { numRuns: 100 },
+    );
+  });
+
+  it("the longest run of a candidate is where its drop meets the limit", () => {
+    // Worked by hand: 20 A two-wire at 12 V, 3 % is 0.36 V. A candidate of 0.006 ohm over a 6 m run has
+    // 0.001 ohm per metre of run (both conductors), so 20 A x 0.001 ohm/m x L = 0.36 V gives L = 18 m.
+    const a = { basis: { currentA: 20, lengthM: 6, returnResistanceOhm: 0 }, limitV: 0.36 };
+    expect(longestRun(a, { resistanceOhm: 0.006 })).toBeCloseTo(18, 9);
+    // With a 9 mOhm chassis return, 20 A already drops 0.18 V there; 0.18 V / (20 A x 0.001 ohm/m) = 9 m.
+    const chassis = { basis: { currentA: 20, lengthM: 6, returnResistanceOhm: 0.009 }, limitV: 0.36 };
+    expect(longestRun(chassis, { resistanceOhm: 0.009 + 0.006 })).toBeCloseTo(9, 9);
+    // A return that alone exceeds the limit leaves no length at all.
+    expect(longestRun({ ...chassis, basis: { ...chassis.basis, returnResistanceOhm: 0.02 } }, { resistanceOhm: 0.026 })).toBe(0);
   });
 });
