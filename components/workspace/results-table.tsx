@@ -47,7 +47,7 @@ export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (i
         </thead>
         <tbody className="divide-y divide-graphite-100">
           {table.getRowModel().rows.map((r) => (
-            <tr key={r.id} onClick={() => onPick(r.original.id)} className="cursor-pointer hover:bg-copper-50" data-testid="ws-result-row">
+            <tr key={r.id} onClick={() => onPick(r.original.id)} className="cursor-pointer hover:bg-copper-50" data-testid="ws-result-row" data-row-id={r.original.id}>
               {r.getVisibleCells().map((c) => (
                 <td key={c.id} className="whitespace-nowrap px-2 py-1 tabular-nums">
                   {flexRender(c.column.columnDef.cell, c.getContext())}

@@ -24,6 +24,8 @@ import { solveCircuit, type SolveResult } from "@/lib/solver";
 import { fromSI } from "@/lib/units";
 import { assess, CANVAS_LIMITS, type Overlay } from "@/lib/workspace/analysis";
 import { addComponent, addWire, copyItems, freeSpot, KIND_NAMES, moveComponents, pasteItems, removeItems, updateComponent, updateWire, withPositions, type Clip } from "@/lib/workspace/edit";
+import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
+import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
 import { nodeTypes, type PartNode } from "./nodes";
 import { PropertiesPanel, type UnitPrefs } from "./properties-panel";
@@ -309,6 +311,12 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
     commit({ ...doc, states: (doc.states ?? []).map((s) => (s.id === activeState.id ? { ...s, set: { ...s.set, [base.id]: diff } } : s)) });
   };
 
+  const [addingLoad, setAddingLoad] = useState(false);
+  const [allSupply, setAllSupply] = useState<{ doc: CircuitDocument; rows: SupplyRow[] } | null>(null);
+  const supplyNow = useMemo(() => (result ? supplyRow(doc, stateId, result) : null), [doc, stateId, result]);
+  // The every-state list belongs to the document it was worked out for.
+  const shownAllSupply = allSupply?.doc === doc ? allSupply.rows : null;
+
   const [newState, setNewState] = useState("");
   const addState = () => {
     const name = newState.trim();
@@ -374,6 +382,11 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
           <button type="button" onClick={redo} disabled={!history.future.length || !props.canEdit} className="rounded border border-graphite-300 px-2 py-1 text-sm disabled:opacity-40" aria-keyshortcuts="Control+Shift+Z" data-testid="ws-redo">
             Redo
           </button>
+          {props.canEdit ? (
+            <button type="button" onClick={() => setAddingLoad(true)} className="rounded border border-copper-600 px-2 py-1 text-sm font-medium text-copper-700" data-testid="ws-add-load">
+              Add a load…
+            </button>
+          ) : null}
           <button type="button" onClick={() => void exportCanvas(wrapper.current, nodes, doc.name, "svg")} className="rounded border border-graphite-300 px-2 py-1 text-sm" data-testid="ws-export-svg">
             SVG
           </button>
@@ -508,6 +521,37 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
             ) : null}
           </section>
 
+          <section aria-label="Supply" data-testid="ws-supply">
+            <h2 className="text-xs font-semibold uppercase tracking-wider text-graphite-500">Supply</h2>
+            {supplyNow ? (
+              <p className={`mt-1 text-sm ${supplyNow.verdict === "deficit" ? "text-over" : ""}`} data-testid="ws-supply-now">
+                {supplyNow.verdict === "deficit" ? "▲ " : ""}
+                {supplyNow.message}
+              </p>
+            ) : null}
+            {shownAllSupply ? (
+              <ul className="mt-1 space-y-1 text-xs" data-testid="ws-supply-all">
+                {shownAllSupply.map((r) => (
+                  <li key={r.stateId}>
+                    <button type="button" className="text-left hover:underline" onClick={() => setStateId(r.stateId)}>
+                      {r.verdict === "deficit" ? "▲ " : ""}
+                      {r.message}
+                    </button>
+                  </li>
+                ))}
+              </ul>
+            ) : (
+              <button
+                type="button"
+                className="mt-1 text-xs underline"
+                onClick={() => setAllSupply({ doc, rows: supplyCheck(doc) })}
+                data-testid="ws-supply-check"
+              >
+                Check every state
+              </button>
+            )}
+          </section>
+
           <section aria-label="Problems" data-testid="ws-problems">
             <h2 className="text-xs font-semibold uppercase tracking-wider text-graphite-500">Problems</h2>
             {errors.length + warnings.length === 0 && overCount === 0 ? (
@@ -563,6 +607,20 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
         <ResultsTable rows={figures} onPick={(id) => select([id])} />
       </section>
       {saver.error && !staleVersionOf(saver.error) ? <IssueList error={saver.error} /> : null}
+      {addingLoad ? (
+        <AddLoadDialog
+          doc={doc}
+          currentState={stateId}
+          onClose={() => setAddingLoad(false)}
+          onAdd={(plan) => {
+            commit(plan.doc);
+            setStateId(plan.stateId);
+            setAddingLoad(false);
+            setNotice(`Added ${plan.ids.load} with a ${plan.size} feed and a ${plan.fuseA} A fuse; showing the new state.`);
+            setTimeout(() => select([plan.ids.load]), 0);
+          }}
+        />
+      ) : null}
       {conflict ? (
         <ConflictDialog
           mine={conflict.mine}
