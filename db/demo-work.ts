@@ -4,6 +4,7 @@
  * Unit 31's bank, an upfit on a customer's van, and a class's bench trainer).
  */
 import type { CircuitDocument } from "@/lib/circuit";
+import type { SizingInputs } from "@/lib/conductors/sizing-form";
 
 /** Lays a demo circuit out on the canvas (grid of 20): positions by component id. */
 function place(doc: CircuitDocument, at: Record<string, [number, number]>): CircuitDocument {
@@ -306,5 +307,25 @@ export const demoJobs: DemoJob[] = [
     status: "open",
     daysAgo: 3,
     circuits: [{ id: "cir_demo_theo", document: benchTrainer, readings: [] }],
+  },
+];
+
+/** Sizings the upfitter kept with the van job, as typed on the sizing page (the answers are worked out at load). */
+export const demoSizings: { id: string; jobId: string; by: string; title: string; inputs: Partial<SizingInputs>; minutesAgo: number }[] = [
+  {
+    id: "siz_demo_van_winch",
+    jobId: "job_demo_van",
+    by: "usr_demo_owner",
+    title: "Winch feed to the front bumper",
+    inputs: { current: "280 A", length: "1.8 m", circuitClass: "critical", zone: "underbody", insulation: "SGX", duty: "intermittent", onTime: "1 min", period: "10 min" },
+    minutesAgo: 50,
+  },
+  {
+    id: "siz_demo_van_inverter",
+    jobId: "job_demo_van",
+    by: "usr_demo_owner",
+    title: "Inverter feed to the cargo area",
+    inputs: { current: "137.5 A", length: "5.5 m", circuitClass: "critical", zone: "underbody", insulation: "SGX" },
+    minutesAgo: 45,
   },
 ];

@@ -1,8 +1,10 @@
 import { sql } from "drizzle-orm";
 import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
-import { demoJobs } from "./demo-work";
-import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, user, vehicles } from "./schema";
+import { sizeCable, summarizeSizing } from "@/lib/conductors";
+import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
+import { demoJobs, demoSizings } from "./demo-work";
+import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -74,6 +76,28 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
             );
           }
         }
+      }
+    },
+  },
+  {
+    name: "demo-sizings-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      for (const z of demoSizings) {
+        const typed = { ...SIZING_DEFAULTS, ...z.inputs };
+        const parsed = parseSizingInputs(typed);
+        if (!parsed.ok) throw new Error(`demo sizing ${z.id}: ${JSON.stringify(parsed.errors)}`);
+        const at = new Date(Date.now() - z.minutesAgo * 60_000);
+        await tx.insert(sizings).values({
+          id: z.id,
+          jobId: z.jobId,
+          title: z.title,
+          inputs: Object.fromEntries(new URLSearchParams(queryFromInputs(typed))),
+          request: parsed.request,
+          answer: summarizeSizing(sizeCable(parsed.request)),
+          createdBy: z.by,
+          createdAt: at,
+        });
       }
     },
   },

@@ -5,9 +5,10 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
 import { FormError } from "@/components/ui/field";
+import { describeProtection } from "@/lib/conductors/protection";
 import { formatWhen, STATUS_LABELS } from "@/lib/format";
 import { useCreateCircuit, useImportCircuit } from "@/lib/hooks/circuits";
-import { useDeleteJob, useJob, useUpdateJob, type Job } from "@/lib/hooks/jobs";
+import { useDeleteJob, useDeleteSizing, useJob, useSizings, useUpdateJob, type Job } from "@/lib/hooks/jobs";
 import type { ApiClientError } from "@/lib/query/client";
 import { JOB_STATUSES, type JobStatus } from "@/lib/validators/work";
 import { StatusBadge } from "./status-badge";
@@ -95,8 +96,61 @@ export function JobDetail({ id }: { id: string }) {
         {job.canEdit ? <AddCircuit jobId={job.id} /> : null}
       </section>
 
+      <JobSizings job={job} />
+
       {job.canEdit ? <DeleteJob job={job} /> : null}
     </div>
+  );
+}
+
+/** Cable and fuse sizings kept with the job, each reopening on the sizing page as it was typed. */
+function JobSizings({ job }: { job: Job }) {
+  const { data } = useSizings(job.id);
+  const remove = useDeleteSizing(job.id);
+  const list = data?.sizings ?? [];
+  if (!list.length && !job.canEdit) return null;
+  return (
+    <section className="mt-8" aria-labelledby="sizings-h" data-testid="job-sizings">
+      <h2 id="sizings-h" className="text-xl font-semibold">
+        Cable sizings
+      </h2>
+      {list.length === 0 ? (
+        <p className={`${box} mt-3 px-5 py-4 text-sm text-graphite-700`}>
+          None yet. Size a feed on the{" "}
+          <Link href="/size" className="text-copper-700 underline">
+            sizing page
+          </Link>{" "}
+          and keep it with this job.
+        </p>
+      ) : (
+        <ul className={`${box} mt-3 divide-y divide-graphite-100`}>
+          {list.map((z) => (
+            <li key={z.id} className="flex flex-wrap items-center justify-between gap-3 px-5 py-3" data-testid="sizing-row">
+              <div>
+                <Link href={`/size?${new URLSearchParams(z.inputs)}`} className="font-semibold text-copper-700 underline-offset-2 hover:underline">
+                  {z.title}
+                </Link>
+                <p className="text-sm text-graphite-700">
+                  {z.request.currentA} A over {z.request.lengthM} m one way at {z.request.systemVoltage} V · {formatWhen(z.createdAt)}
+                  {z.createdByName ? ` by ${z.createdByName}` : ""}
+                </p>
+              </div>
+              <div className="flex items-center gap-3 text-sm">
+                <span className="font-mono font-semibold" data-testid="sizing-answer">
+                  {z.answer.size ?? "no size fits"}
+                  {z.answer.protection ? `, ${describeProtection(z.answer.protection)}` : ""}
+                </span>
+                {job.canEdit ? (
+                  <button type="button" className={secondary} disabled={remove.isPending} onClick={() => remove.mutate(z.id)} aria-label={`Remove ${z.title}`}>
+                    Remove
+                  </button>
+                ) : null}
+              </div>
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
   );
 }
 

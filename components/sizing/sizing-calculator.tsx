@@ -1,117 +1,12 @@
 "use client";
 
 import { useEffect, useMemo, useState } from "react";
-import { INSULATION_TYPES, sizeCable, type SizingAnswer, type SizingRequest } from "@/lib/conductors";
-import { parseQuantity } from "@/lib/units";
+import { describeProtection, INSULATION_TYPES, sizeCable, type SizingAnswer } from "@/lib/conductors";
+import { inputsFromQuery, parseSizingInputs as parse, queryFromInputs, SIZING_DEFAULTS as initial, type SizingInputs as Inputs } from "@/lib/conductors/sizing-form";
 import { DropChart } from "./drop-chart";
-
-type Inputs = {
-  systemVoltage: string;
-  current: string;
-  length: string;
-  circuitClass: "critical" | "non-critical";
-  zone: "cabin" | "engine" | "underbody";
-  insulation: string;
-  bundle: string;
-  family: "awg" | "metric";
-  returnPath: "two-wire" | "chassis";
-  returnResistance: string;
-  duty: "continuous" | "intermittent";
-  onTime: string;
-  period: string;
-};
-
-const initial: Inputs = {
-  systemVoltage: "12",
-  current: "20 A",
-  length: "6 m",
-  circuitClass: "critical",
-  zone: "cabin",
-  insulation: "TXL",
-  bundle: "1",
-  family: "awg",
-  returnPath: "two-wire",
-  returnResistance: "5 mOhm",
-  duty: "continuous",
-  onTime: "1 min",
-  period: "10 min",
-};
-
-type Parsed = { ok: true; request: SizingRequest } | { ok: false; errors: Partial<Record<keyof Inputs, string>> };
-
-/** Reads the typed values with their units into a sizing request, or says what to fix field by field. */
-function parse(i: Inputs): Parsed {
-  const errors: Partial<Record<keyof Inputs, string>> = {};
-  const q = (key: keyof Inputs, kind: Parameters<typeof parseQuantity>[1], unit?: string) => {
-    const r = parseQuantity(i[key], kind, unit);
-    if (!r.ok) errors[key] = r.message;
-    else if (!(r.value > 0)) errors[key] = "must be more than 0";
-    return r.ok ? r.value : 0;
-  };
-  const currentA = q("current", "current", "A");
-  const lengthM = q("length", "length", "m");
-  const returnR = i.returnPath === "chassis" ? q("returnResistance", "resistance", "ohm") : 0;
-  const onS = i.duty === "intermittent" ? q("onTime", "time", "s") : 0;
-  const periodS = i.duty === "intermittent" ? q("period", "time", "s") : 0;
-  if (i.duty === "intermittent" && onS > periodS) errors.onTime = "the on time cannot be longer than the period";
-  const bundle = Number(i.bundle);
-  if (!Number.isInteger(bundle) || bundle < 1 || bundle > 200) errors.bundle = "a whole number of conductors, 1 or more";
-  if (currentA > 5000) errors.current = "above 5000 A is outside the tables";
-  if (lengthM > 1000) errors.length = "above 1000 m is not a vehicle cable run";
-  if (Object.keys(errors).length) return { ok: false, errors };
-  const rating = INSULATION_TYPES.find((t) => t.id === i.insulation)?.ratingC ?? 105;
-  return {
-    ok: true,
-    request: {
-      systemVoltage: Number(i.systemVoltage),
-      currentA,
-      lengthM,
-      circuitClass: i.circuitClass,
-      zone: i.zone,
-      insulationRatingC: rating,
-      bundleSize: bundle,
-      family: i.family,
-      returnPath: i.returnPath,
-      returnResistanceOhm: i.returnPath === "chassis" ? returnR : undefined,
-      duty: i.duty === "intermittent" ? { kind: "intermittent", onS, periodS } : { kind: "continuous" },
-    },
-  };
-}
+import { SaveSizing } from "./save-sizing";
 
 const input = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2";
-
-/** The choices a URL may set; anything else in it is ignored. Text fields take any short text (parse judges it). */
-const CHOICES: Partial<Record<keyof Inputs, readonly string[]>> = {
-  systemVoltage: ["12", "24"],
-  circuitClass: ["critical", "non-critical"],
-  zone: ["cabin", "engine", "underbody"],
-  insulation: INSULATION_TYPES.map((t) => t.id),
-  family: ["awg", "metric"],
-  returnPath: ["two-wire", "chassis"],
-  duty: ["continuous", "intermittent"],
-};
-
-/** The inputs a shared or bookmarked address carries, over the defaults. */
-export function inputsFromQuery(search: string): Inputs {
-  const q = new URLSearchParams(search);
-  const next = { ...initial };
-  for (const key of Object.keys(initial) as (keyof Inputs)[]) {
-    const value = q.get(key);
-    if (value === null || value.length > 40) continue;
-    const allowed = CHOICES[key];
-    if (allowed && !allowed.includes(value)) continue;
-    (next as Record<string, string>)[key] = value;
-  }
-  return next;
-}
-
-/** Only what differs from the defaults goes into the address, so a shared link stays short. */
-export function queryFromInputs(v: Inputs): string {
-  const q = new URLSearchParams();
-  for (const key of Object.keys(initial) as (keyof Inputs)[]) if (v[key] !== initial[key]) q.set(key, v[key]);
-  const s = q.toString();
-  return s ? `?${s}` : "";
-}
 
 /** The upfitter's quick cable and fuse sizing: computed in the browser as the values are typed. */
 export function SizingCalculator() {
@@ -227,7 +122,7 @@ export function SizingCalculator() {
                   </p>
                   {answer.protection ? (
                     <p className="mt-2 text-lg" data-testid="size-protection">
-                      {answer.protection.ratingA} A {answer.protection.type === "blade" ? "blade fuse" : answer.protection.type === "bolt-in" ? "bolt-in fuse" : "breaker"}
+                      {describeProtection(answer.protection)}
                     </p>
                   ) : null}
                   <p className="mt-2 text-sm text-graphite-300" data-testid="size-reason">
@@ -273,6 +168,11 @@ export function SizingCalculator() {
               </p>
             </div>
             <DropChart answer={answer} />
+            <SaveSizing
+              inputs={Object.fromEntries(new URLSearchParams(queryFromInputs(v)))}
+              request={parsed.ok ? parsed.request : null}
+              suggestedTitle={`${v.current.trim()} over ${v.length.trim()}${answer.recommended ? `: ${answer.recommended.size}` : ""}`}
+            />
             <ul className="list-disc space-y-1 pl-5 text-sm text-graphite-700">
               {answer.notes.map((n) => (
                 <li key={n}>{n}</li>

@@ -3,8 +3,9 @@ import { randomUUID } from "node:crypto";
 import { and, asc, count, desc, eq, gt, ilike, lt, max, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/pg-core";
 import type { Db } from "@/db";
-import { auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, user } from "@/db/schema";
+import { auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, sizings, user } from "@/db/schema";
 import type { CircuitDocument } from "@/lib/circuit";
+import type { SizingRequest, SizingSummary } from "@/lib/conductors/sizing";
 import type { JobStatus } from "@/lib/validators/job-status";
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
@@ -500,6 +501,63 @@ export async function deleteReading(db: Db, p: { readingId: string; jobId: strin
     const gone = await tx.delete(readings).where(eq(readings.id, p.readingId)).returning({ circuitId: readings.circuitId, value: readings.value, unit: readings.unit });
     await touchJob(tx, p.jobId, p.userId);
     await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: "reading.delete", entityType: "reading", entityId: p.readingId, detail: gone[0] });
+  });
+}
+
+// ---------------------------------------------------------------- sizings saved to a job
+
+export async function sizingAccess(db: Db, sizingId: string, userId: string): Promise<(WorkAccess & { sizingId: string }) | undefined> {
+  const rows = await db
+    .select({ ...accessColumns(), sizingId: sizings.id })
+    .from(sizings)
+    .innerJoin(jobs, eq(jobs.id, sizings.jobId))
+    .innerJoin(organization, eq(organization.id, jobs.organizationId))
+    .leftJoin(member, memberOf(userId))
+    .where(eq(sizings.id, sizingId))
+    .limit(1);
+  return rows[0];
+}
+
+const sizer = alias(user, "sizer");
+const sizingColumns = {
+  id: sizings.id,
+  jobId: sizings.jobId,
+  title: sizings.title,
+  inputs: sizings.inputs,
+  request: sizings.request,
+  answer: sizings.answer,
+  createdAt: sizings.createdAt,
+  createdByName: sizer.name,
+};
+
+/** A job's saved sizings, oldest first. */
+export async function listSizings(db: Db, jobId: string) {
+  return db.select(sizingColumns).from(sizings).leftJoin(sizer, eq(sizer.id, sizings.createdBy)).where(eq(sizings.jobId, jobId)).orderBy(asc(sizings.createdAt), asc(sizings.id));
+}
+
+export async function getSizing(db: Db, sizingId: string) {
+  const rows = await db.select(sizingColumns).from(sizings).leftJoin(sizer, eq(sizer.id, sizings.createdBy)).where(eq(sizings.id, sizingId)).limit(1);
+  return rows[0];
+}
+
+export async function createSizing(
+  db: Db,
+  p: { jobId: string; organizationId: string; userId: string; title: string; inputs: Record<string, string>; request: SizingRequest; answer: SizingSummary },
+) {
+  const id = newId("siz");
+  await db.transaction(async (tx) => {
+    await tx.insert(sizings).values({ id, jobId: p.jobId, title: p.title, inputs: p.inputs, request: p.request, answer: p.answer, createdBy: p.userId });
+    await touchJob(tx, p.jobId, p.userId);
+    await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: "sizing.create", entityType: "sizing", entityId: id, detail: { jobId: p.jobId, title: p.title, size: p.answer.size } });
+  });
+  return id;
+}
+
+export async function deleteSizing(db: Db, p: { sizingId: string; jobId: string; organizationId: string; userId: string }) {
+  await db.transaction(async (tx) => {
+    const gone = await tx.delete(sizings).where(eq(sizings.id, p.sizingId)).returning({ title: sizings.title });
+    await touchJob(tx, p.jobId, p.userId);
+    await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: "sizing.delete", entityType: "sizing", entityId: p.sizingId, detail: gone[0] });
   });
 }
 

@@ -4,6 +4,7 @@ import { user } from "./auth";
 import { organization } from "./organizations";
 import { JOB_STATUSES } from "../../lib/validators/job-status";
 import { vehicles } from "./vehicles";
+import type { SizingRequest, SizingSummary } from "../../lib/conductors/sizing";
 
 
 const people = {
@@ -95,6 +96,27 @@ export const attachments = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("attachments_job_idx").on(t.jobId)],
+);
+
+/**
+ * A cable and fuse sizing saved to a job: what was typed (to reopen it on the sizing page), the request in SI
+ * units, and the answer the conductor engine gave for it when it was saved.
+ */
+export const sizings = pgTable(
+  "sizings",
+  {
+    id: text("id").primaryKey(),
+    jobId: text("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "cascade" }),
+    title: text("title").notNull(),
+    inputs: jsonb("inputs").$type<Record<string, string>>().notNull(),
+    request: jsonb("request").$type<SizingRequest>().notNull(),
+    answer: jsonb("answer").$type<SizingSummary>().notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("sizings_job_idx").on(t.jobId, t.createdAt)],
 );
 
 /**

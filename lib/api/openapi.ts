@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { circuitSchemaV1 } from "@/lib/circuit";
-import { cableSizeRequest } from "@/lib/validators/cable-size";
+import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
 import { solveRequest } from "@/lib/validators/solve";
 import {
   circuitDocumentField,
@@ -57,6 +57,10 @@ export const OPERATIONS: Op[] = [
   { method: "post", path: "/api/v1/circuits/{circuitId}/readings", summary: "Record a reading between two terminals", access: "who may edit the job", body: createReadingInput, responses: { "201": "The reading", ...common } },
   { method: "patch", path: "/api/v1/readings/{readingId}", summary: "Correct a reading", access: "who may edit the job", body: updateReadingInput, responses: { "200": "The reading", ...common } },
   { method: "delete", path: "/api/v1/readings/{readingId}", summary: "Remove a reading", access: "who may edit the job", responses: { "204": "Deleted", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}/sizings", summary: "Cable and fuse sizings saved to a job", access: "who may read the job", responses: { "200": "Sizings", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/sizings", summary: "Save a sizing to a job (the answer is worked out on the server)", access: "who may edit the job", body: saveSizingInput, responses: { "201": "The sizing", ...common } },
+  { method: "get", path: "/api/v1/sizings/{sizingId}", summary: "One saved sizing", access: "who may read the job", responses: { "200": "The sizing", ...common } },
+  { method: "delete", path: "/api/v1/sizings/{sizingId}", summary: "Remove a saved sizing", access: "who may edit the job", responses: { "204": "Deleted", ...common } },
   { method: "get", path: "/api/v1/circuits/{circuitId}/export", summary: "Download the document with its readings as one JSON file", access: "who may read the job", responses: { "200": "The export file", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },

@@ -2,7 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { db } from "@/db";
 import { findMembership, listMemberships } from "@/db/queries/organizations";
-import { circuitAccess, jobAccess, readCircuitFor, readingAccess, type WorkAccess } from "@/db/queries/work";
+import { circuitAccess, jobAccess, readCircuitFor, readingAccess, sizingAccess, type WorkAccess } from "@/db/queries/work";
 import { can } from "@/lib/auth/permissions";
 import { currentUser, type Membership, type SignedIn } from "./authed";
 import { ApiError } from "./errors";
@@ -16,8 +16,8 @@ export function workRights(role: string, isOwn: boolean) {
   };
 }
 
-type Resource = "job" | "circuit" | "reading";
-export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string };
+type Resource = "job" | "circuit" | "reading" | "sizing";
+export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string; sizingId?: string };
 export type CircuitRecord = NonNullable<Awaited<ReturnType<typeof readCircuitFor>>>;
 type WorkCtx<TBody> = {
   req: Request;
@@ -30,7 +30,7 @@ type WorkCtx<TBody> = {
   circuit?: CircuitRecord;
 };
 
-type Found = WorkAccess & { circuitId?: string; readingId?: string };
+type Found = WorkAccess & { circuitId?: string; readingId?: string; sizingId?: string };
 const lookups: Record<Resource, { param: string; find: (id: string, userId: string) => Promise<Found | undefined>; missing: string }> = {
   job: { param: "jobId", find: (id, userId) => jobAccess(db, id, userId), missing: "There is no such job, or it is not yours to see." },
   circuit: {
@@ -48,6 +48,11 @@ const lookups: Record<Resource, { param: string; find: (id: string, userId: stri
       return row ? { ...row, readingId: id } : undefined;
     },
     missing: "There is no such reading, or it is not yours to see.",
+  },
+  sizing: {
+    param: "sizingId",
+    find: (id, userId) => sizingAccess(db, id, userId),
+    missing: "There is no such sizing, or it is not yours to see.",
   },
 };
 
@@ -72,7 +77,7 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
       found?.role ? { organizationId: found.organizationId, role: found.role, kind: found.organizationKind, name: found.organizationName } : undefined;
     const rights = membership && found ? workRights(membership.role, found.ownerId === user.id) : undefined;
     if (!found || !membership || !rights?.read) throw new ApiError(404, "not-found", lookup.missing);
-    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId };
+    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId, sizingId: found.sizingId };
     if (options.need === "edit" && !rights.edit) {
       throw new ApiError(403, "forbidden", `Your role (${membership.role}) in ${membership.name} lets you read this work but not change it.`);
     }

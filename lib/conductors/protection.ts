@@ -36,3 +36,8 @@ export function protectionFor(continuousA: number, deratedAmpacityA: number, pre
   const p = pickRating(continuousA * PROTECTION_MARGIN, prefer);
   return p && p.ratingA <= deratedAmpacityA + 1e-9 ? p : undefined;
 }
+
+/** "25 A blade fuse", "100 A bolt-in fuse", "50 A breaker". */
+export function describeProtection(p: { ratingA: number; type: ProtectionType }): string {
+  return `${p.ratingA} A ${p.type === "blade" ? "blade fuse" : p.type === "bolt-in" ? "bolt-in fuse" : "breaker"}`;
+}

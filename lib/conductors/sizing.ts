@@ -212,3 +212,31 @@ export function longestRun(answer: Pick<SizingAnswer, "basis" | "limitV">, candi
   const perMetre = (candidate.resistanceOhm - returnResistanceOhm) / lengthM;
   return perMetre > 0 ? spare / (currentA * perMetre) : Infinity;
 }
+
+/** What a saved sizing keeps of its answer: enough for a job page and a report without recomputing. */
+export type SizingSummary = {
+  status: SizingAnswer["status"];
+  size: string | null;
+  protection: { ratingA: number; type: Protection["type"] } | null;
+  reason: string;
+  limitV: number;
+  dropV: number | null;
+  dropPercent: number | null;
+  lossW: number | null;
+  ampacityA: number | null;
+};
+
+export function summarizeSizing(a: SizingAnswer): SizingSummary {
+  const r = a.recommended;
+  return {
+    status: a.status,
+    size: r?.size ?? null,
+    protection: a.protection ? { ratingA: a.protection.ratingA, type: a.protection.type } : null,
+    reason: a.reason,
+    limitV: a.limitV,
+    dropV: r?.dropV ?? null,
+    dropPercent: r?.dropPercent ?? null,
+    lossW: r?.lossW ?? null,
+    ampacityA: r?.ampacityA ?? null,
+  };
+}

@@ -2,6 +2,8 @@
 
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { apiFetch, type ApiClientError } from "@/lib/query/client";
+import type { SizingRequest, SizingSummary } from "@/lib/conductors/sizing";
+import type { SaveSizingBody } from "@/lib/validators/cable-size";
 import type { CreateJobInput, JobStatus, UpdateJobInput } from "@/lib/validators/work";
 
 export type Job = {
@@ -57,8 +59,8 @@ function listUrl(p: JobListParams) {
 }
 
 /** A page of the jobs list; the previous page stays on screen while the next loads. */
-export function useJobs(p: JobListParams) {
-  return useQuery({ queryKey: jobKeys.list(p), queryFn: () => apiFetch<JobPage>(listUrl(p)), placeholderData: keepPreviousData });
+export function useJobs(p: JobListParams, opts: { enabled?: boolean } = {}) {
+  return useQuery({ queryKey: jobKeys.list(p), queryFn: () => apiFetch<JobPage>(listUrl(p)), placeholderData: keepPreviousData, enabled: opts.enabled });
 }
 
 export function useJob(id: string) {
@@ -103,5 +105,38 @@ export function useDeleteJob(id: string) {
       qc.removeQueries({ queryKey: jobKeys.one(id) });
       return qc.invalidateQueries({ queryKey: jobKeys.all });
     },
+  });
+}
+
+export type SavedSizing = {
+  id: string;
+  jobId: string;
+  title: string;
+  inputs: Record<string, string>;
+  request: SizingRequest;
+  answer: SizingSummary;
+  createdAt: string;
+  createdByName: string | null;
+};
+
+export const sizingKeys = { job: (jobId: string) => ["jobs", "sizings", jobId] as const };
+
+export function useSizings(jobId: string) {
+  return useQuery({ queryKey: sizingKeys.job(jobId), queryFn: () => apiFetch<{ sizings: SavedSizing[] }>(`/api/v1/jobs/${jobId}/sizings`) });
+}
+
+export function useSaveSizing() {
+  const qc = useQueryClient();
+  return useMutation<{ sizing: SavedSizing }, ApiClientError, { jobId: string; body: SaveSizingBody }>({
+    mutationFn: ({ jobId, body }) => apiFetch(`/api/v1/jobs/${jobId}/sizings`, { method: "POST", json: body }),
+    onSuccess: (_d, v) => qc.invalidateQueries({ queryKey: sizingKeys.job(v.jobId) }),
+  });
+}
+
+export function useDeleteSizing(jobId: string) {
+  const qc = useQueryClient();
+  return useMutation<void, ApiClientError, string>({
+    mutationFn: (id) => apiFetch(`/api/v1/sizings/${id}`, { method: "DELETE" }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: sizingKeys.job(jobId) }),
   });
 }

@@ -48,3 +48,17 @@ export const cableSizeRequest = z
   });
 
 export type CableSizeRequest = z.infer<typeof cableSizeRequest>;
+
+/** POST /api/v1/jobs/:jobId/sizings: a sizing to keep with a job. The answer is worked out again on the server. */
+export const saveSizingInput = z.strictObject({
+  title: z.string().trim().min(1, "give the sizing a title, e.g. Winch feed").max(120, "keep the title under 120 characters"),
+  // What was typed on the sizing page, so the saved sizing reopens as it was.
+  inputs: z
+    .record(z.string().regex(/^[a-zA-Z]{1,30}$/, "input names are letters only"), z.string().max(40, "an input is at most 40 characters"))
+    .refine((r) => Object.keys(r).length <= 30, { message: "at most 30 inputs" })
+    .default({}),
+  request: cableSizeRequest,
+});
+export type SaveSizingInput = z.infer<typeof saveSizingInput>;
+/** The body as a client sends it (defaults may be left out). */
+export type SaveSizingBody = z.input<typeof saveSizingInput>;

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { baseUrl, sharedBrowser, screenshot, watchPage } from "../support/browser";
+import { DEMO_PASSWORD } from "@/db/demo";
+import { baseUrl, sharedBrowser, screenshot, signedInContext, watchPage } from "../support/browser";
 
 const browser = sharedBrowser();
 
@@ -75,6 +76,36 @@ describe("the sizing page", () => {
     await page.waitForFunction(() => new URLSearchParams(location.search).get("current") === "30 A");
     expect(new URL(page.url()).searchParams.get("length")).toBe("3 m");
     await page.close();
+  });
+
+  it("keeps a sizing with a job: saved from the page, listed on the job, and reopened as it was typed", async () => {
+    const signedOut = await browser().newPage();
+    await signedOut.goto(`${baseUrl}/size`, { waitUntil: "networkidle" });
+    await signedOut.getByTestId("size-save-signed-out").waitFor();
+    await signedOut.close();
+
+    const ctx = await signedInContext(browser(), "priya@larkspur.example", DEMO_PASSWORD);
+    const page = await ctx.newPage();
+    const watch = watchPage(page);
+    // The winch worked by hand above, at 4 m one way: 2 AWG and a 100 A bolt-in fuse.
+    await page.goto(`${baseUrl}/size?current=250%20A&length=4%20m&circuitClass=non-critical&zone=underbody&insulation=SGX&duty=intermittent`, { waitUntil: "networkidle" });
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "2 AWG");
+    await page.getByTestId("size-save-job").selectOption("job_demo_van");
+    const title = `Second winch, rear hitch ${Date.now() % 100000}`; // unique, so a rerun on the same data finds its own
+    await page.getByTestId("size-save-title").fill(title);
+    await page.getByTestId("size-save-button").click();
+    await expect.poll(() => page.getByTestId("size-saved").textContent()).toBe(`Saved \u201c${title}\u201d (2 AWG) to Winch and inverter upfit.`);
+
+    await page.goto(`${baseUrl}/jobs/job_demo_van`, { waitUntil: "networkidle" });
+    const row = page.getByTestId("sizing-row").filter({ hasText: title });
+    await expect(row.getByTestId("sizing-answer").textContent()).resolves.toBe("2 AWG, 100 A bolt-in fuse");
+    await screenshot(page, "job-sizings-1280");
+    await row.getByRole("link", { name: title }).click();
+    await page.waitForURL(/\/size\?/);
+    await expect(page.getByTestId("size-length").inputValue()).resolves.toBe("4 m");
+    await page.waitForFunction(() => document.querySelector('[data-testid="size-recommended"]')?.textContent === "2 AWG");
+    expect(watch.problems).toEqual([]);
+    await ctx.close();
   });
 
   it("works from the keyboard alone at a phone's width", async () => {

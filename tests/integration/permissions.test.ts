@@ -16,6 +16,8 @@ import * as importRoute from "@/app/api/v1/jobs/[jobId]/import/route";
 import * as jobRoute from "@/app/api/v1/jobs/[jobId]/route";
 import * as jobsRoute from "@/app/api/v1/jobs/route";
 import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
+import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
+import * as sizingRoute from "@/app/api/v1/sizings/[sizingId]/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
 import { callRoute, removeTestJobs, signInCookie } from "../support/sessions";
@@ -113,10 +115,11 @@ describe("the permission table for organisation routes", () => {
   });
 });
 
-describe("the permission table for work routes (jobs, circuits, revisions, readings)", () => {
+describe("the permission table for work routes (jobs, circuits, revisions, readings, sizings)", () => {
   // Each row runs against a job owned by one person: roles that see all work may read it, roles that see only their
   // own work get 404 on another's, read-only roles get 403 on a change; outsiders 404; signed out 401.
-  type Fx = { jobId: string; circuitId: string; readingId: string };
+  type Fx = { jobId: string; circuitId: string; readingId: string; sizingId: string };
+  const sizing = { title: "Light bar feed", inputs: { current: "20 A" }, request: { systemVoltage: 12, currentA: 20, lengthM: 6 } };
   type WorkRow = { name: string; need: "read" | "edit"; ok: number; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
   const R = (f: unknown) => f as Handler;
   const doc = { schema: "ampwright.circuit/1", name: "Perm check", systemVoltage: 12, components: [{ id: "B1", kind: "battery", openCircuitVoltage: 12.6, internalResistance: 0.01 }], wires: [] };
@@ -128,7 +131,8 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     const c = await callRoute(R(jobCircuits.POST), { json: { document: doc }, params: { jobId }, cookie: ownerCookie });
     const circuitId = (await c.json()).circuit.id;
     const r = await callRoute(R(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 12.6 }, params: { circuitId }, cookie: ownerCookie });
-    return { jobId, circuitId, readingId: (await r.json()).reading.id };
+    const z = await callRoute(R(jobSizings.POST), { json: sizing, params: { jobId }, cookie: ownerCookie });
+    return { jobId, circuitId, readingId: (await r.json()).reading.id, sizingId: (await z.json()).sizing.id };
   }
   const putDoc = async (cookie: string | undefined, circuitId: string) => {
     const req = new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/x`, {
@@ -162,6 +166,10 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     },
     { name: "PATCH reading", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(readingRoute.PATCH), { method: "PATCH", json: { note: "checked" }, params: { readingId: fx.readingId }, cookie }) },
     { name: "DELETE reading", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(readingRoute.DELETE), { method: "DELETE", params: { readingId: fx.readingId }, cookie }) },
+    { name: "GET job sizings", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(jobSizings.GET), { params: { jobId: fx.jobId }, cookie }) },
+    { name: "GET sizing", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(sizingRoute.GET), { params: { sizingId: fx.sizingId }, cookie }) },
+    { name: "POST sizing", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(jobSizings.POST), { json: sizing, params: { jobId: fx.jobId }, cookie }) },
+    { name: "DELETE sizing", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(sizingRoute.DELETE), { method: "DELETE", params: { sizingId: fx.sizingId }, cookie }) },
   ];
 
   const cases = [

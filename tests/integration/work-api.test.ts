@@ -12,6 +12,8 @@ import * as jobRoute from "@/app/api/v1/jobs/[jobId]/route";
 import * as jobsRoute from "@/app/api/v1/jobs/route";
 import * as openapi from "@/app/api/v1/openapi.json/route";
 import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
+import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
+import * as sizingRoute from "@/app/api/v1/sizings/[sizingId]/route";
 import { DEMO_PASSWORD, demoShop } from "@/db/demo";
 import { pickupCharging } from "@/db/demo-work";
 import { seedDemo } from "@/db/seed";
@@ -283,6 +285,37 @@ describe("readings, export and import", () => {
     expect(refused.status).toBe(422);
     expect((await refused.json()).error.issues[0].path).toBe("readings.0.positive");
     expect((await pool.query("select count(*)::int n from circuits where job_id = $1", [jobId])).rows[0].n).toBe(before);
+  });
+});
+
+describe("sizings saved to a job", () => {
+  it("keeps a sizing with its job, works the answer out on the server, and removes it", async () => {
+    const jobId = await newJob(tech, "Winch install");
+    // The light bar worked by hand in the sizing page's browser test: 20 A, 6 m one way, 3 % of 12 V, cabin,
+    // 105 C (the request default): 6 AWG (NBS Handbook 100 copper) with a 25 A blade fuse (125 %, ISO 8820-3 steps).
+    const request = { systemVoltage: 12, currentA: 20, lengthM: 6, zone: "cabin" };
+    const saved = await callRoute(h(jobSizings.POST), { json: { title: "Light bar feed", inputs: { current: "20 A", length: "6 m" }, request }, params: { jobId }, cookie: tech });
+    expect(saved.status).toBe(201);
+    const sizing = (await saved.json()).sizing;
+    expect(sizing).toMatchObject({ title: "Light bar feed", inputs: { current: "20 A", length: "6 m" }, createdByName: "Priya Halvorsen" });
+    expect(sizing.answer).toMatchObject({ status: "ok", size: "6 AWG", protection: { ratingA: 25, type: "blade" } });
+    expect(sizing.answer.limitV).toBeCloseTo(0.36, 12); // 3 % of 12 V, ABYC E-11 critical
+
+    // Anything but the request is ignored for the answer: a caller cannot store an answer of its own.
+    const forged = await callRoute(h(jobSizings.POST), { json: { title: "x", request, answer: { size: "20 AWG" } }, params: { jobId }, cookie: tech });
+    expect(forged.status).toBe(422);
+    const bad = await callRoute(h(jobSizings.POST), { json: { title: " ", inputs: { "bad key": "x" }, request: { ...request, currentA: -1 } }, params: { jobId }, cookie: tech });
+    expect(bad.status).toBe(422);
+    expect((await bad.json()).error.issues.map((i: { path: string }) => i.path).sort()).toEqual(["inputs.bad key", "request.currentA", "title"]);
+    const count = async () => (await pool.query("select count(*)::int n from sizings where job_id = $1", [jobId])).rows[0].n;
+    expect(await count()).toBe(1);
+
+    const list = await (await callRoute(h(jobSizings.GET), { params: { jobId }, cookie: viewer })).json();
+    expect(list.sizings.map((s: { id: string }) => s.id)).toEqual([sizing.id]);
+    expect((await callRoute(h(sizingRoute.DELETE), { method: "DELETE", params: { sizingId: sizing.id }, cookie: viewer })).status).toBe(403);
+    expect((await callRoute(h(sizingRoute.DELETE), { method: "DELETE", params: { sizingId: sizing.id }, cookie: tech })).status).toBe(204);
+    expect(await count()).toBe(0);
+    expect((await callRoute(h(sizingRoute.GET), { params: { sizingId: sizing.id }, cookie: tech })).status).toBe(404);
   });
 });
 

@@ -9,6 +9,7 @@ import * as importRoute from "@/app/api/v1/jobs/[jobId]/import/route";
 import * as jobRoute from "@/app/api/v1/jobs/[jobId]/route";
 import * as jobsRoute from "@/app/api/v1/jobs/route";
 import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
+import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
 import { DEMO_PASSWORD, demoShop } from "@/db/demo";
 import { pickupCharging } from "@/db/demo-work";
 import { seedDemo } from "@/db/seed";
@@ -45,7 +46,7 @@ function send(handler: Handler, method: string, body: string, params: Record<str
 
 async function counts() {
   const { rows } = await pool.query(
-    "select (select count(*) from jobs)::int j, (select count(*) from circuits)::int c, (select count(*) from circuit_revisions)::int r, (select count(*) from readings)::int d, (select count(*) from audit_events)::int a",
+    "select (select count(*) from jobs)::int j, (select count(*) from circuits)::int c, (select count(*) from circuit_revisions)::int r, (select count(*) from readings)::int d, (select count(*) from sizings)::int s, (select count(*) from audit_events)::int a",
   );
   return rows[0];
 }
@@ -70,6 +71,12 @@ const nearValid = fc.record(
     unit: fc.oneof(fc.constantFrom("V", "mV", "kV"), fc.integer()),
     stateId: fc.oneof(fc.constantFrom("base", "charge", "nope"), fc.integer()),
     takenAt: fc.oneof(fc.constantFrom("yesterday", "2026-13-45T00:00:00Z"), fc.string()),
+    inputs: fc.oneof(fc.dictionary(fc.string(), fc.string()), fc.constant({ current: "20 A" }), fc.anything()),
+    request: fc.oneof(
+      fc.anything(),
+      fc.constant({ systemVoltage: 12, currentA: 20, lengthM: 6 }),
+      fc.record({ systemVoltage: fc.oneof(fc.double(), fc.string()), currentA: fc.double(), lengthM: fc.double(), duty: fc.anything() }, { requiredKeys: [] }),
+    ),
     extra: fc.anything(),
   },
   { requiredKeys: [] },
@@ -90,6 +97,7 @@ const routes: { name: string; handler: unknown; method: string; params: () => Re
   { name: "POST /circuits/:id/restore", handler: restoreRoute.POST, method: "POST", params: () => ({ circuitId }) },
   { name: "POST /circuits/:id/readings", handler: readingsRoute.POST, method: "POST", params: () => ({ circuitId }) },
   { name: "PATCH /readings/:id", handler: readingRoute.PATCH, method: "PATCH", params: () => ({ readingId }) },
+  { name: "POST /jobs/:id/sizings", handler: jobSizings.POST, method: "POST", params: () => ({ jobId }) },
 ];
 
 describe("random bodies to every write route", () => {
