@@ -1,6 +1,7 @@
 #!/usr/bin/env bash
-# npm run bench:api: the circuits API under load (autocannon) against a production build on loopback, with its
-# own throwaway PostgreSQL. Prints figures; it is not a test.
+# npm run bench:api (and bench:ui): the circuits API under load (autocannon), or the pages in headless Chromium
+# (scripts/bench-ui.ts, given as the first argument), against a production build on loopback with its own
+# throwaway PostgreSQL. Prints figures; it is not a test.
 set -uo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/common.sh"
 cd "$ROOT"
@@ -33,4 +34,4 @@ setsid node_modules/.bin/next start -H 127.0.0.1 -p "$BENCH_PORT" >/tmp/ampwrigh
 SERVER_PID=$!
 wait_for_http "$APP_URL/api/health" "$SERVER_PID"
 set +e
-node_modules/.bin/tsx scripts/bench-api.ts
+node_modules/.bin/tsx "${1:-scripts/bench-api.ts}"

@@ -1,5 +1,6 @@
 "use client";
 
+import { memo } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { dropAtLength, longestRun, type Candidate, type SizingAnswer } from "@/lib/conductors";
 
@@ -33,7 +34,7 @@ export function chartSpan(answer: SizingAnswer, shown: Candidate[]): number {
 }
 
 /** Drop against one-way length for the candidates around the answer, with the limit and the run typed drawn in. */
-export function DropChart({ answer }: { answer: SizingAnswer }) {
+export const DropChart = memo(function DropChart({ answer }: { answer: SizingAnswer }) {
   const shown = chartCandidates(answer);
   const span = chartSpan(answer, shown);
   const data = Array.from({ length: POINTS }, (_, i) => {
@@ -98,4 +99,4 @@ export function DropChart({ answer }: { answer: SizingAnswer }) {
       </p>
     </figure>
   );
-}
+});

@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useMemo, useState } from "react";
+import { useDeferredValue, useEffect, useMemo, useState } from "react";
 import { describeProtection, INSULATION_TYPES, sizeCable, type SizingAnswer } from "@/lib/conductors";
 import { inputsFromQuery, parseSizingInputs as parse, queryFromInputs, SIZING_DEFAULTS as initial, type SizingInputs as Inputs } from "@/lib/conductors/sizing-form";
 import { DropChart } from "./drop-chart";
@@ -22,7 +22,9 @@ export function SizingCalculator() {
     if (loaded) window.history.replaceState(null, "", `${window.location.pathname}${queryFromInputs(v)}`);
   }, [v, loaded]);
   const parsed = useMemo(() => parse(v), [v]);
-  const answer: SizingAnswer | null = parsed.ok ? sizeCable(parsed.request) : null;
+  const answer: SizingAnswer | null = useMemo(() => (parsed.ok ? sizeCable(parsed.request) : null), [parsed]);
+  // The plot follows a moment later than the answer, so typing shows the size in the next frame.
+  const plotted = useDeferredValue(answer);
   const set = (key: keyof Inputs) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => setV((old) => ({ ...old, [key]: e.target.value }));
   const err = (key: keyof Inputs) =>
     !parsed.ok && parsed.errors[key] ? (
@@ -167,7 +169,7 @@ export function SizingCalculator() {
                 factors.
               </p>
             </div>
-            <DropChart answer={answer} />
+            {plotted ? <DropChart answer={plotted} /> : null}
             <SaveSizing
               inputs={Object.fromEntries(new URLSearchParams(queryFromInputs(v)))}
               request={parsed.ok ? parsed.request : null}

@@ -29,6 +29,14 @@ function volts(v: number | undefined) {
   return v === undefined ? null : `${v.toFixed(Math.abs(v) < 10 ? 3 : 2)} V`;
 }
 
+/** Whether two node data would draw the same: the same figures as shown (volts to the digits on screen). */
+export function samePartView(a: PartData, b: PartData): boolean {
+  if (a.band !== b.band || a.off !== b.off || a.note !== b.note || Boolean(a.volts) !== Boolean(b.volts)) return false;
+  if (!a.volts || !b.volts) return true;
+  const keys = Object.keys(b.volts);
+  return keys.length === Object.keys(a.volts).length && keys.every((k) => volts(a.volts![k]) === volts(b.volts![k]));
+}
+
 function PartView({ data, selected, type }: NodeProps<PartNode>) {
   const c = data.component;
   const kind = type as ComponentKind;

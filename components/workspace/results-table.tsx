@@ -5,6 +5,7 @@ import { useState } from "react";
 import type { WireFigures } from "@/lib/workspace/analysis";
 
 const col = createColumnHelper<WireFigures>();
+const FIRST_ROWS = 60;
 const num = (digits: number, unit: string) => (v: number | undefined) => (v === undefined ? "-" : `${v.toFixed(digits)} ${unit}`);
 
 const columns = [
@@ -27,6 +28,8 @@ const columns = [
 /** Every cable and connection with its figures, sortable; a row click picks it on the canvas. */
 export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (id: string) => void }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "drop", desc: true }]);
+  // A large circuit lists its worst rows first (by the chosen sort); the rest on request, so each edit stays quick.
+  const [all, setAll] = useState(false);
   // eslint-disable-next-line react-hooks/incompatible-library -- rebuilt each render; nothing below is memoised
   const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
@@ -46,7 +49,7 @@ export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (i
           ))}
         </thead>
         <tbody className="divide-y divide-graphite-100">
-          {table.getRowModel().rows.map((r) => (
+          {(all ? table.getRowModel().rows : table.getRowModel().rows.slice(0, FIRST_ROWS)).map((r) => (
             <tr key={r.id} onClick={() => onPick(r.original.id)} className="cursor-pointer hover:bg-copper-50" data-testid="ws-result-row" data-row-id={r.original.id}>
               {r.getVisibleCells().map((c) => (
                 <td key={c.id} className="whitespace-nowrap px-2 py-1 tabular-nums">
@@ -57,6 +60,11 @@ export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (i
           ))}
         </tbody>
       </table>
+      {rows.length > FIRST_ROWS ? (
+        <button type="button" onClick={() => setAll(!all)} className="w-full border-t border-graphite-100 px-3 py-2 text-left text-sm text-copper-700 underline" data-testid="ws-results-all">
+          {all ? `Show the first ${FIRST_ROWS} rows only` : `Show all ${rows.length} rows (the first ${FIRST_ROWS} by the chosen order are shown)`}
+        </button>
+      ) : null}
       {rows.length === 0 ? <p className="px-3 py-3 text-sm text-graphite-500">No cables yet: join two terminals to draw one.</p> : null}
     </div>
   );

@@ -1,13 +1,28 @@
 "use client";
 
-import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, type Edge, type EdgeProps, type EdgeTypes } from "@xyflow/react";
+import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, useStore, type Edge, type EdgeProps, type EdgeTypes } from "@xyflow/react";
 import type { Wire } from "@/lib/circuit";
 import type { Band, Overlay, WireFigures } from "@/lib/workspace/analysis";
 
 export type WireData = { wire: Wire; figures?: WireFigures; overlay: Overlay; conductor: string };
 export type WireEdgeType = Edge<WireData, "wire">;
 
+/** Below this zoom the cable labels are left out. */
+export const LABEL_MIN_ZOOM = 0.5;
+
 export const BAND_COLOUR: Record<Band, string> = { within: "#2d7a56", caution: "#a86a0c", over: "#b0301f" };
+
+/** The figures a cable's label shows for an overlay. */
+function figuresText(f: WireFigures, overlay: Overlay): string {
+  const drop = Math.abs(f.drop) < 0.1 ? `${(Math.abs(f.drop) * 1000).toFixed(1)} mV` : `${Math.abs(f.drop).toFixed(3)} V`;
+  const extra = overlay === "loss" ? ` · ${f.power.toFixed(1)} W` : overlay === "ampacity" && f.usePercent !== undefined ? ` · ${f.usePercent.toFixed(0)} %` : "";
+  return `${Math.abs(f.current).toFixed(1)} A · ${drop}${extra}`;
+}
+
+/** Everything a cable's drawing depends on from its figures, as one string: equal strings draw the same. */
+export function wireView(f: WireFigures | undefined, overlay: Overlay): string {
+  return f ? `${f.band[overlay]}|${f.over.length > 0}|${figuresText(f, overlay)}` : "-";
+}
 
 /** A cable: its size and length on the line, and once solved its current and drop, coloured by the chosen overlay. */
 function WireEdge(props: EdgeProps<WireEdgeType>) {
@@ -18,6 +33,8 @@ function WireEdge(props: EdgeProps<WireEdgeType>) {
   const over = f && f.over.length > 0;
   const colour = band ? BAND_COLOUR[band] : "#68737d";
   const direct = data?.wire.resistanceOhm === 0;
+  // Zoomed out, the labels would be unreadable and overlap: the line's colour and dash carry the overlay alone.
+  const farAway = useStore((st) => st.transform[2] < LABEL_MIN_ZOOM);
   return (
     <>
       <BaseEdge
@@ -26,7 +43,7 @@ function WireEdge(props: EdgeProps<WireEdgeType>) {
         style={{ stroke: colour, strokeWidth: selected ? 4 : direct ? 2 : 3, strokeDasharray: over ? "8 4" : undefined }}
         interactionWidth={16}
       />
-      {direct && !selected ? null : (
+      {(direct || farAway) && !selected ? null : (
         <EdgeLabelRenderer>
           <div
             className={`nodrag nopan pointer-events-auto absolute rounded border bg-white/95 px-1.5 py-0.5 text-center font-mono text-[10px] leading-tight shadow-sm ${selected ? "border-copper-500" : "border-graphite-100"}`}
@@ -39,8 +56,7 @@ function WireEdge(props: EdgeProps<WireEdgeType>) {
             {f ? (
               <div style={{ color: colour }} className="font-semibold">
                 {over ? "▲ " : ""}
-                {Math.abs(f.current).toFixed(1)} A · {Math.abs(f.drop) < 0.1 ? `${(Math.abs(f.drop) * 1000).toFixed(1)} mV` : `${Math.abs(f.drop).toFixed(3)} V`}
-                {data?.overlay === "loss" ? ` · ${f.power.toFixed(1)} W` : data?.overlay === "ampacity" && f.usePercent !== undefined ? ` · ${f.usePercent.toFixed(0)} %` : ""}
+                {figuresText(f, data!.overlay)}
               </div>
             ) : null}
           </div>

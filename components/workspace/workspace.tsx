@@ -27,15 +27,19 @@ import { addComponent, addWire, copyItems, freeSpot, KIND_NAMES, moveComponents,
 import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
 import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
-import { nodeTypes, type PartNode } from "./nodes";
+import { nodeTypes, samePartView, type PartNode } from "./nodes";
 import { PropertiesPanel, type UnitPrefs } from "./properties-panel";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
-import { BAND_COLOUR, edgeTypes, type WireEdgeType } from "./wire-edge";
+import { BAND_COLOUR, edgeTypes, wireView, type WireEdgeType } from "./wire-edge";
 
 const HISTORY_LIMIT = 100;
 const SAVE_DELAY_MS = 1200;
-const SOLVE_DELAY_MS = 120;
+/** Circuits this large are solved in a Web Worker (about 3 ms of solving at 300 parts, but the page keeps working). */
+const WORKER_FROM_COMPONENTS = 150;
+
+/** The last edge drawn for each cable object, with what it showed (see edges below). */
+const edgeCache = new WeakMap<Wire, { shown: string; edge: WireEdgeType }>();
 
 type SaveState = { kind: "saved"; version: number } | { kind: "dirty" } | { kind: "saving" } | { kind: "error"; message: string };
 
@@ -78,7 +82,6 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
   const [stateId, setStateId] = useState("base");
   const [overlay, setOverlay] = useState<Overlay>("drop");
   const [prefs, setPrefs] = usePrefs();
-  const [result, setResult] = useState<SolveResult>();
   const [nodes, setNodes] = useState<PartNode[]>([]);
   const [selectedEdges, setSelectedEdges] = useState<string[]>([]);
   const [notice, setNotice] = useState<string | null>(null);
@@ -155,33 +158,59 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
   }, [doc, conflict, props.canEdit, saveTick]);
   const shownSave: SaveState = save.kind === "saved" && doc !== savedShown ? { kind: "dirty" } : save;
 
-  // ---- live solve of the chosen operating state
+  // ---- live solve of the chosen operating state: a small circuit in the same render as the edit, a large one in a
+  // worker (the page stays responsive while it works; an answer for an older edit is dropped)
+  const solveState = stateIdsOf(doc).includes(stateId) ? stateId : "base";
+  const inWorker = doc.components.length >= WORKER_FROM_COMPONENTS && typeof Worker !== "undefined";
+  const nearResult = useMemo(() => (inWorker ? undefined : solveCircuit(doc, { state: solveState })), [doc, solveState, inWorker]);
+  const [farResult, setFarResult] = useState<SolveResult>();
+  const worker = useRef<Worker | null>(null);
+  const asked = useRef(0);
+  useEffect(() => () => worker.current?.terminate(), []);
   useEffect(() => {
-    const t = setTimeout(() => setResult(solveCircuit(doc, { state: stateIdsOf(doc).includes(stateId) ? stateId : "base" })), SOLVE_DELAY_MS);
-    return () => clearTimeout(t);
-  }, [doc, stateId]);
+    if (!inWorker) return;
+    if (!worker.current) {
+      worker.current = new Worker(new URL("./solve.worker.ts", import.meta.url));
+      worker.current.onmessage = (e: MessageEvent<{ seq: number; result: SolveResult }>) => {
+        if (e.data.seq === asked.current) setFarResult(e.data.result);
+      };
+    }
+    worker.current.postMessage({ seq: ++asked.current, doc, state: solveState });
+  }, [doc, solveState, inWorker]);
+  const result = inWorker ? farResult : nearResult;
 
   const figures = useMemo(() => assess(doc, result), [doc, result]);
   const figureById = useMemo(() => new Map(figures.map((f) => [f.id, f])), [figures]);
 
-  // ---- canvas nodes follow the document; xyflow's own measurements and selection are kept
+  // ---- canvas nodes follow the document; xyflow's own measurements and selection are kept. A node whose part and
+  // shown figures did not change keeps its object, so the canvas redraws only what an edit changed.
   useEffect(() => {
+    const voltsByPart = new Map<string, Record<string, number>>();
+    if (result) {
+      for (const [k, v] of Object.entries(result.terminals)) {
+        const dot = k.lastIndexOf(".");
+        const id = k.slice(0, dot);
+        let rec = voltsByPart.get(id);
+        if (!rec) voltsByPart.set(id, (rec = {}));
+        rec[k.slice(dot + 1)] = v;
+      }
+    }
     // eslint-disable-next-line react-hooks/set-state-in-effect -- nodes are derived from the document but keep xyflow's measurements
     setNodes((prev) => {
       const old = new Map(prev.map((n) => [n.id, n]));
       return doc.components.map((c) => {
         const o = old.get(c.id);
         const comp = result?.components[c.id];
-        const volts: Record<string, number> | undefined = result
-          ? Object.fromEntries(Object.entries(result.terminals).filter(([k]) => k.startsWith(`${c.id}.`)).map(([k, v]) => [k.slice(c.id.length + 1), v]))
-          : undefined;
+        const volts = result ? (voltsByPart.get(c.id) ?? {}) : undefined;
         const f = c.kind === "joint" ? figureById.get(c.id) : undefined;
+        const data: PartNode["data"] = { component: c, volts, band: f?.band.drop, off: comp?.mode === "off" || comp?.mode === "open", note: comp?.mode ? `mode: ${comp.mode}` : undefined };
+        if (o && !o.dragging && o.data.component === c && o.position === c.position && samePartView(o.data, data)) return o;
         return {
           ...(o ?? {}),
           id: c.id,
           type: c.kind,
           position: o?.dragging ? o.position : (c.position ?? { x: 0, y: 0 }),
-          data: { component: c, volts, band: f?.band.drop, off: comp?.mode === "off" || comp?.mode === "open", note: comp?.mode ? `mode: ${comp.mode}` : undefined },
+          data,
         } as PartNode;
       });
     });
@@ -207,9 +236,18 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
   const edges: WireEdgeType[] = useMemo(
     () =>
       doc.wires.map((w) => {
+        const figures = figureById.get(w.id);
+        const selected = selectedEdges.includes(w.id);
+        const text = conductor(w);
+        // The same cable drawn the same way keeps its edge object, so only changed cables are redrawn.
+        const shown = `${selected}|${overlay}|${text}|${wireView(figures, overlay)}`;
+        const kept = edgeCache.get(w);
+        if (kept?.shown === shown) return kept.edge;
         const [s, sh] = w.from.split(".");
         const [t, th] = w.to.split(".");
-        return { id: w.id, type: "wire", source: s, sourceHandle: sh, target: t, targetHandle: th, selected: selectedEdges.includes(w.id), data: { wire: w, figures: figureById.get(w.id), overlay, conductor: conductor(w) } };
+        const edge: WireEdgeType = { id: w.id, type: "wire", source: s, sourceHandle: sh, target: t, targetHandle: th, selected, data: { wire: w, figures, overlay, conductor: text } };
+        edgeCache.set(w, { shown, edge });
+        return edge;
       }),
     [doc.wires, selectedEdges, figureById, overlay, conductor],
   );

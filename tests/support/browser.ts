@@ -1,27 +1,14 @@
 import fs from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import type { Browser, BrowserContext, Page } from "playwright-core";
 import { afterAll, beforeAll } from "vitest";
+import { launchBrowser } from "./chromium";
+
+export { launchBrowser };
 
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3100";
 export const artifactsDir = path.resolve(process.env.E2E_ARTIFACTS ?? "test-artifacts");
 
-/** Debian's Chromium, headless, with the flags that keep it off the network. */
-export async function launchBrowser(): Promise<Browser> {
-  return chromium.launch({
-    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
-    headless: true,
-    args: [
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-quic",
-      "--no-first-run",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--disable-sync",
-    ],
-  });
-}
 
 export async function screenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(artifactsDir, { recursive: true });
