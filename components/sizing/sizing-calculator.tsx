@@ -1,7 +1,8 @@
 "use client";
 
+import { InsulationOptions } from "./insulation-options";
 import { useDeferredValue, useEffect, useMemo, useState } from "react";
-import { describeProtection, INSULATION_TYPES, sizeCable, type SizingAnswer } from "@/lib/conductors";
+import { describeProtection, sizeCable, type SizingAnswer } from "@/lib/conductors";
 import { inputsFromQuery, parseSizingInputs as parse, queryFromInputs, SIZING_DEFAULTS as initial, type SizingInputs as Inputs } from "@/lib/conductors/sizing-form";
 import { DropChart } from "./drop-chart";
 import { SaveSizing } from "./save-sizing";
@@ -71,11 +72,7 @@ export function SizingCalculator() {
           <label className="block text-sm">
             <span className="font-medium text-graphite-800">Cable type</span>
             <select className={input} value={v.insulation} onChange={set("insulation")} data-testid="size-insulation">
-              {INSULATION_TYPES.map((t) => (
-                <option key={t.id} value={t.id}>
-                  {t.name} ({t.ratingC} °C)
-                </option>
-              ))}
+              <InsulationOptions />
             </select>
           </label>
           {text("bundle", "Conductors in the bundle", "1 if it runs alone")}

@@ -1,10 +1,11 @@
 "use client";
 
+import { InsulationOptions } from "@/components/sizing/insulation-options";
 import { useEffect, useMemo, useRef } from "react";
 import { useForm, useWatch } from "react-hook-form";
 import { SafetyNote } from "@/components/ui/safety-note";
 import type { CircuitDocument } from "@/lib/circuit";
-import { INSULATION_TYPES, type Duty } from "@/lib/conductors";
+import type { Duty } from "@/lib/conductors";
 import { solveCircuit } from "@/lib/solver";
 import { parseQuantity } from "@/lib/units";
 import { planAddedLoad, tapChoices, type AddLoadInput, type AddLoadPlan } from "@/lib/workspace/add-load";
@@ -215,11 +216,7 @@ export function AddLoadDialog(props: { doc: CircuitDocument; currentState: strin
             <label className="block text-sm">
               <span className="font-medium">Cable type</span>
               <select {...form.register("insulation")} className={field} data-testid="load-insulation">
-                {INSULATION_TYPES.map((t) => (
-                  <option key={t.id} value={t.id}>
-                    {t.name} ({t.ratingC} °C)
-                  </option>
-                ))}
+                <InsulationOptions />
               </select>
             </label>
             <label className="block text-sm">
