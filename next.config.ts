@@ -5,10 +5,14 @@ const distDir = process.env.NEXT_DIST_DIR || ".next";
 
 const nextConfig: NextConfig = {
   distDir,
-  serverExternalPackages: ["pg"],
+  serverExternalPackages: ["pg", "pdfkit"],
   poweredByHeader: false,
   compress: false,
   typescript: { tsconfigPath: "tsconfig.json" },
+  // Shared links open without signing in: keep them out of search engines and out of shared caches.
+  async headers() {
+    return [{ source: "/shared/:path*", headers: [{ key: "X-Robots-Tag", value: "noindex, nofollow" }, { key: "Referrer-Policy", value: "no-referrer" }, { key: "Cache-Control", value: "private, no-store" }] }];
+  },
 };
 
 export default nextConfig;

@@ -329,3 +329,20 @@ export const demoSizings: { id: string; jobId: string; by: string; title: string
     minutesAgo: 45,
   },
 ];
+
+/** What the unit 14 readings proved and what was done: the words the report gives the service writer. */
+export const demoOutcomes: { jobId: string; findings: string; repair: string }[] = [
+  {
+    jobId: "job_demo_unit14",
+    findings:
+      "Battery 12.44 V at rest (about 74 % charged). Charging at idle with the lights and blower on, the ground side from the battery negative to the alternator case dropped 1.69 V at 49 A, and 1.68 V of that is between the engine block and the alternator case: the mounting bracket joint. Positive side 0.118 V, within limits.",
+    repair:
+      "Removed the alternator, cleaned the bracket and block faces to bare metal, refitted with new hardware to the maker's torque, and added a 4 AWG ground strap from the case to the block. Charge the battery fully before retesting.",
+  },
+];
+
+/**
+ * A read-only link to the unit 14 report that the demo makes with a known token, so the shared page can be tried
+ * at /shared/<token> on a local run. Real links get a random token that is shown once.
+ */
+export const DEMO_SHARE_TOKEN = "ampwright-demo-unit-14-battery-light-report";

@@ -1,10 +1,11 @@
-import { sql } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
 import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
 import { sizeCable, summarizeSizing } from "@/lib/conductors";
 import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
-import { demoJobs, demoSizings } from "./demo-work";
-import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, sizings, user, vehicles } from "./schema";
+import { DEMO_SHARE_TOKEN, demoJobs, demoOutcomes, demoSizings } from "./demo-work";
+import { hashShareToken } from "@/lib/report/tokens";
+import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -99,6 +100,21 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
           createdAt: at,
         });
       }
+    },
+  },
+  {
+    name: "demo-reports-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      for (const o of demoOutcomes) await tx.update(jobs).set({ findings: o.findings, repair: o.repair }).where(eq(jobs.id, o.jobId));
+      await tx.insert(shareLinks).values({
+        id: "shr_demo_unit14",
+        organizationId: "org_demo_shop",
+        jobId: "job_demo_unit14",
+        tokenHash: hashShareToken(DEMO_SHARE_TOKEN),
+        label: "Fleet manager",
+        createdBy: "usr_demo_tech",
+      });
     },
   },
 ];

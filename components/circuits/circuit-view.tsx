@@ -59,6 +59,12 @@ export function CircuitView({ id }: { id: string }) {
           <a href={`/api/v1/circuits/${id}/export`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="export-link">
             Download (.json)
           </a>
+          <a href={`/api/v1/circuits/${id}/readings.csv`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="readings-csv-link">
+            Readings (.csv)
+          </a>
+          <a href={`/api/v1/circuits/${id}/results.csv`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="results-csv-link">
+            Results (.csv)
+          </a>
         </div>
       </div>
 

@@ -11,6 +11,8 @@ import { useCreateCircuit, useImportCircuit } from "@/lib/hooks/circuits";
 import { useDeleteJob, useDeleteSizing, useJob, useSizings, useUpdateJob, type Job } from "@/lib/hooks/jobs";
 import type { ApiClientError } from "@/lib/query/client";
 import { JOB_STATUSES, type JobStatus } from "@/lib/validators/work";
+import { JobOutcome } from "./job-outcome";
+import { ShareLinks } from "./share-links";
 import { StatusBadge } from "./status-badge";
 
 const box = "rounded-lg border border-graphite-100 bg-paper-raised";
@@ -96,7 +98,9 @@ export function JobDetail({ id }: { id: string }) {
         {job.canEdit ? <AddCircuit jobId={job.id} /> : null}
       </section>
 
+      <JobOutcome job={job} />
       <JobSizings job={job} />
+      <ShareLinks job={job} circuits={circuits} />
 
       {job.canEdit ? <DeleteJob job={job} /> : null}
     </div>
@@ -199,6 +203,9 @@ function JobHeader({ job }: { job: Job }) {
             <p className="mt-1 text-graphite-700">{job.vehicle || "Vehicle not described"} · {job.systemVoltage} V system</p>
           </div>
           <div className="flex items-center gap-3">
+            <Link href={`/jobs/${job.id}/report`} className="rounded-md bg-copper-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-copper-700" data-testid="job-report-link">
+              Report
+            </Link>
             <StatusBadge status={job.status} />
             {job.canEdit ? (
               <label className="text-sm">

@@ -143,6 +143,8 @@ const jobColumns = {
   vehicle: jobs.vehicle,
   systemVoltage: jobs.systemVoltage,
   complaint: jobs.complaint,
+  findings: jobs.findings,
+  repair: jobs.repair,
   status: jobs.status,
   createdAt: jobs.createdAt,
   updatedAt: jobs.updatedAt,
@@ -207,7 +209,7 @@ export async function getJob(db: Db, jobId: string) {
   return rows[0];
 }
 
-export type NewJob = { title: string; vehicle: string; systemVoltage: number; complaint: string; status: JobStatus; vehicleId?: string | null };
+export type NewJob = { title: string; vehicle: string; systemVoltage: number; complaint: string; status: JobStatus; vehicleId?: string | null; findings?: string; repair?: string };
 
 export async function createJob(db: Db, p: { organizationId: string; userId: string } & NewJob) {
   const id = newId("job");
@@ -455,7 +457,6 @@ const readingColumns = {
   unit: readings.unit,
   currentA: readings.currentA,
   note: readings.note,
-  attachmentId: readings.attachmentId,
   takenAt: readings.takenAt,
   takenById: readings.takenBy,
   takenByName: taker.name,

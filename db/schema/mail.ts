@@ -1,4 +1,7 @@
-import { index, integer, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+import { index, integer, jsonb, pgTable, serial, text, timestamp } from "drizzle-orm/pg-core";
+
+/** A file sent with a message (a report PDF), its bytes as base64. */
+export type MailAttachment = { filename: string; contentType: string; contentBase64: string };
 
 /**
  * Mail waiting to be sent. A row is written in the same transaction as the action that causes it; the sender
@@ -12,6 +15,7 @@ export const mailOutbox = pgTable(
     subject: text("subject").notNull(),
     text: text("body_text").notNull(),
     html: text("body_html"),
+    attachments: jsonb("attachments").$type<MailAttachment[]>(),
     kind: text("kind").notNull(),
     attempts: integer("attempts").notNull().default(0),
     nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),

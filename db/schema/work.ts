@@ -1,5 +1,5 @@
 import { sql } from "drizzle-orm";
-import { bigserial, check, doublePrecision, index, integer, jsonb, pgTable, real, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
+import { type AnyPgColumn, bigserial, check, doublePrecision, index, integer, jsonb, pgTable, real, text, timestamp, uniqueIndex } from "drizzle-orm/pg-core";
 import { user } from "./auth";
 import { organization } from "./organizations";
 import { JOB_STATUSES } from "../../lib/validators/job-status";
@@ -31,6 +31,10 @@ export const jobs = pgTable(
     vehicle: text("vehicle_description").notNull().default(""),
     systemVoltage: real("system_voltage").notNull().default(12),
     complaint: text("complaint").notNull().default(""),
+    /** What the tests showed: the fault and where it is (the report's "found"). */
+    findings: text("findings").notNull().default(""),
+    /** What was done about it (the report's "repair"). */
+    repair: text("repair").notNull().default(""),
     status: text("status", { enum: JOB_STATUSES }).notNull().default("open"),
     ...people,
   },
@@ -76,7 +80,11 @@ export const circuitRevisions = pgTable(
   (t) => [uniqueIndex("circuit_revisions_version_idx").on(t.circuitId, t.version)],
 );
 
-/** A photo or PDF in object storage, attached to a job and optionally to one reading (filled by the sharing work). */
+/**
+ * A photo or PDF in object storage, attached to a job and optionally to one of its readings. A row starts
+ * "pending" when the upload URL is handed out and becomes "ready" once the server has read the stored bytes and
+ * checked their type and size; objects that fail the check are deleted with their row.
+ */
 export const attachments = pgTable(
   "attachments",
   {
@@ -87,15 +95,106 @@ export const attachments = pgTable(
     jobId: text("job_id")
       .notNull()
       .references(() => jobs.id, { onDelete: "cascade" }),
+    /** The reading it is evidence for; deleting the reading leaves the photo with the job. */
+    readingId: text("reading_id").references((): AnyPgColumn => readings.id, { onDelete: "set null" }),
+    status: text("status", { enum: ["pending", "ready"] }).notNull().default("pending"),
     objectKey: text("object_key").notNull().unique(),
+    thumbnailKey: text("thumbnail_key"),
     fileName: text("file_name").notNull(),
+    /** The type the browser declared, until the upload is checked; then the type read from the bytes. */
     contentType: text("content_type").notNull(),
     sizeBytes: integer("size_bytes").notNull(),
     sha256: text("sha256").notNull(),
     uploadedBy: text("uploaded_by").references(() => user.id, { onDelete: "set null" }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("attachments_job_idx").on(t.jobId)],
+  (t) => [index("attachments_job_idx").on(t.jobId), index("attachments_reading_idx").on(t.readingId), check("attachments_status_check", sql`${t.status} in ('pending', 'ready')`)],
+);
+
+/**
+ * A read-only link to one job or one circuit that opens without signing in. Only the SHA-256 of the token is kept;
+ * the token itself is shown once, when the link is made.
+ */
+export const shareLinks = pgTable(
+  "share_links",
+  {
+    id: text("id").primaryKey(),
+    organizationId: text("organization_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    jobId: text("job_id")
+      .notNull()
+      .references(() => jobs.id, { onDelete: "cascade" }),
+    /** Set for a link to one circuit; null for a link to the whole job. */
+    circuitId: text("circuit_id").references(() => circuits.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull().unique(),
+    label: text("label").notNull().default(""),
+    expiresAt: timestamp("expires_at", { withTimezone: true }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    openCount: integer("open_count").notNull().default(0),
+    lastOpenedAt: timestamp("last_opened_at", { withTimezone: true }),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("share_links_job_idx").on(t.jobId, t.createdAt)],
+);
+
+/** A worked circuit an instructor publishes to their class. Each publish adds a frozen version. */
+export const lessons = pgTable(
+  "lessons",
+  {
+    id: text("id").primaryKey(),
+    organizationId: text("organization_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    /** The circuit it was published from (null once that circuit is deleted; the versions stay). */
+    sourceCircuitId: text("source_circuit_id").references(() => circuits.id, { onDelete: "set null" }),
+    latestVersion: integer("latest_version").notNull().default(1),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("lessons_org_idx").on(t.organizationId, t.updatedAt), uniqueIndex("lessons_source_idx").on(t.sourceCircuitId)],
+);
+
+export type LessonQuestion = { prompt: string };
+
+export const lessonVersions = pgTable(
+  "lesson_versions",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    lessonId: text("lesson_id")
+      .notNull()
+      .references(() => lessons.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    title: text("title").notNull(),
+    brief: text("brief").notNull().default(""),
+    questions: jsonb("questions").$type<LessonQuestion[]>().notNull().default([]),
+    document: jsonb("document").notNull(),
+    publishedBy: text("published_by").references(() => user.id, { onDelete: "set null" }),
+    publishedAt: timestamp("published_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("lesson_versions_version_idx").on(t.lessonId, t.version)],
+);
+
+/** Who in the class opened a lesson and whether they made their own copy (one row per person and lesson). */
+export const lessonActivity = pgTable(
+  "lesson_activity",
+  {
+    lessonId: text("lesson_id")
+      .notNull()
+      .references(() => lessons.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => user.id, { onDelete: "cascade" }),
+    firstOpenedAt: timestamp("first_opened_at", { withTimezone: true }).notNull().defaultNow(),
+    lastOpenedAt: timestamp("last_opened_at", { withTimezone: true }).notNull().defaultNow(),
+    openCount: integer("open_count").notNull().default(1),
+    lastVersion: integer("last_version").notNull(),
+    copiedAt: timestamp("copied_at", { withTimezone: true }),
+    copyJobId: text("copy_job_id").references(() => jobs.id, { onDelete: "set null" }),
+  },
+  (t) => [uniqueIndex("lesson_activity_pk").on(t.lessonId, t.userId)],
 );
 
 /**
@@ -137,7 +236,6 @@ export const readings = pgTable(
     unit: text("unit", { enum: ["V", "mV"] }).notNull().default("V"),
     currentA: doublePrecision("current_a"),
     note: text("note").notNull().default(""),
-    attachmentId: text("attachment_id").references(() => attachments.id, { onDelete: "set null" }),
     takenBy: text("taken_by").references(() => user.id, { onDelete: "set null" }),
     takenAt: timestamp("taken_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),

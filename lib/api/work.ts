@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { db } from "@/db";
 import { findMembership, listMemberships } from "@/db/queries/organizations";
+import { shareLinkAccess } from "@/db/queries/sharing";
 import { circuitAccess, jobAccess, readCircuitFor, readingAccess, sizingAccess, type WorkAccess } from "@/db/queries/work";
 import { can } from "@/lib/auth/permissions";
 import { currentUser, type Membership, type SignedIn } from "./authed";
@@ -16,8 +17,8 @@ export function workRights(role: string, isOwn: boolean) {
   };
 }
 
-type Resource = "job" | "circuit" | "reading" | "sizing";
-export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string; sizingId?: string };
+type Resource = "job" | "circuit" | "reading" | "sizing" | "share";
+export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string };
 export type CircuitRecord = NonNullable<Awaited<ReturnType<typeof readCircuitFor>>>;
 type WorkCtx<TBody> = {
   req: Request;
@@ -30,7 +31,7 @@ type WorkCtx<TBody> = {
   circuit?: CircuitRecord;
 };
 
-type Found = WorkAccess & { circuitId?: string; readingId?: string; sizingId?: string };
+type Found = WorkAccess & { circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string };
 const lookups: Record<Resource, { param: string; find: (id: string, userId: string) => Promise<Found | undefined>; missing: string }> = {
   job: { param: "jobId", find: (id, userId) => jobAccess(db, id, userId), missing: "There is no such job, or it is not yours to see." },
   circuit: {
@@ -53,6 +54,11 @@ const lookups: Record<Resource, { param: string; find: (id: string, userId: stri
     param: "sizingId",
     find: (id, userId) => sizingAccess(db, id, userId),
     missing: "There is no such sizing, or it is not yours to see.",
+  },
+  share: {
+    param: "linkId",
+    find: (id, userId) => shareLinkAccess(db, id, userId),
+    missing: "There is no such share link, or it is not yours to see.",
   },
 };
 
@@ -77,7 +83,7 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
       found?.role ? { organizationId: found.organizationId, role: found.role, kind: found.organizationKind, name: found.organizationName } : undefined;
     const rights = membership && found ? workRights(membership.role, found.ownerId === user.id) : undefined;
     if (!found || !membership || !rights?.read) throw new ApiError(404, "not-found", lookup.missing);
-    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId, sizingId: found.sizingId };
+    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId, sizingId: found.sizingId, shareLinkId: found.shareLinkId };
     if (options.need === "edit" && !rights.edit) {
       throw new ApiError(403, "forbidden", `Your role (${membership.role}) in ${membership.name} lets you read this work but not change it.`);
     }

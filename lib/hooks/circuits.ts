@@ -28,7 +28,6 @@ export type Reading = {
   unit: "V" | "mV";
   currentA: number | null;
   note: string;
-  attachmentId: string | null;
   takenAt: string;
   takenById: string | null;
   takenByName: string | null;

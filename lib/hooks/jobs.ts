@@ -16,6 +16,8 @@ export type Job = {
   vehicle: string;
   systemVoltage: number;
   complaint: string;
+  findings: string;
+  repair: string;
   status: JobStatus;
   createdAt: string;
   updatedAt: string;

@@ -21,7 +21,9 @@ export async function deliverDueMail(): Promise<number> {
     const due = await claimDueMail(db);
     for (const m of due) {
       try {
-        await transport().sendMail({ from: env().MAIL_FROM, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined });
+        await transport().sendMail({ from: env().MAIL_FROM, to: m.to, subject: m.subject, text: m.text, html: m.html ?? undefined,
+          attachments: m.attachments?.map((a) => ({ filename: a.filename, contentType: a.contentType, content: Buffer.from(a.contentBase64, "base64") })),
+        });
         await markMailSent(db, m.id);
         sent++;
       } catch (err) {

@@ -24,3 +24,14 @@ export function invitationMessage(p: { inviter: string; organization: string; ro
   ];
   return { subject: `Join ${p.organization} on Ampwright`, text: `${lines.join("\n\n")}\n\n${p.url}\n`, html: wrap(lines, { url: p.url, label: "Accept the invitation" }) };
 }
+
+/** A job report sent from the job page: a note from the sender, the report in brief, the PDF attached. */
+export function reportMessage(p: { sender: string; organization: string; title: string; note: string; summary: string; url?: string }): Message {
+  const lines = [`${p.sender} of ${p.organization} sent you the report of a job: ${p.title}.`, ...(p.note ? [p.note] : []), "The full report is attached as a PDF."];
+  const text = `${lines.join("\n\n")}\n\n${p.summary}\n`;
+  const summary = `<pre style="font-family:inherit;white-space:pre-wrap;border-top:1px solid #d0d7de;padding-top:12px">${esc(p.summary)}</pre>`;
+  const html = p.url
+    ? wrap(lines, { url: p.url, label: "Open the report" }).replace(/<\/div>$/, `${summary}</div>`)
+    : `<div style="font-family:sans-serif;max-width:560px">${lines.map((l) => `<p>${esc(l)}</p>`).join("")}${summary}</div>`;
+  return { subject: `Report: ${p.title}`, text, html };
+}

@@ -33,6 +33,8 @@ export const updateJobInput = z
     vehicle: text("vehicle", 500),
     systemVoltage: z.number({ error: "systemVoltage must be a number of volts" }).finite().min(6).max(1000),
     complaint: text("complaint", 4000),
+    findings: text("findings", 4000),
+    repair: text("repair", 4000),
     status: jobStatus,
   })
   .partial()

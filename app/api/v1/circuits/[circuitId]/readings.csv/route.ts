@@ -1,0 +1,16 @@
+import { db } from "@/db";
+import { getCircuit, listReadings } from "@/db/queries/work";
+import { ApiError } from "@/lib/api/errors";
+import { workRoute } from "@/lib/api/work";
+import { loadCircuit } from "@/lib/circuit";
+import { readingsCsv } from "@/lib/report/csv";
+import { downloadHeaders, slugOf } from "@/lib/report/files";
+
+// GET /api/v1/circuits/:circuitId/readings.csv - the readings with the model's prediction and verdict, as CSV
+export const GET = workRoute({ resource: "circuit", need: "read" }, async ({ target }) => {
+  const [circuit, readings] = await Promise.all([getCircuit(db, target.circuitId!), listReadings(db, target.circuitId!)]);
+  if (!circuit) throw new ApiError(404, "not-found", "There is no such circuit.");
+  const loaded = loadCircuit(circuit.document);
+  if (!loaded.ok) throw new ApiError(409, "invalid-document", "The stored circuit no longer loads; open it in the workspace and save it again.");
+  return new Response(readingsCsv(loaded.document, readings), { headers: downloadHeaders("text/csv; charset=utf-8", `${slugOf(circuit.name, "circuit")}-readings.csv`) });
+});
