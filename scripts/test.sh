@@ -24,6 +24,7 @@ command -v curl >/dev/null || apt_install curl
 ensure_node_modules
 [ -x /usr/bin/chromium ] || { say "installing Debian's chromium for the browser tests"; apt_install chromium; }
 command -v ngspice >/dev/null || { say "installing Debian's ngspice (the solver's independent oracle)"; apt_install ngspice; }
+command -v pdftotext >/dev/null || { say "installing Debian's poppler-utils (the report tests read PDFs with it)"; apt_install poppler-utils; }
 set +e
 
 SERVER_PID=""

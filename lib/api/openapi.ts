@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { circuitSchemaV1 } from "@/lib/circuit";
 import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
+import { createShareLinkInput, emailReportInput } from "@/lib/validators/sharing";
 import { solveRequest } from "@/lib/validators/solve";
 import {
   circuitDocumentField,
@@ -62,6 +63,14 @@ export const OPERATIONS: Op[] = [
   { method: "get", path: "/api/v1/sizings/{sizingId}", summary: "One saved sizing", access: "who may read the job", responses: { "200": "The sizing", ...common } },
   { method: "delete", path: "/api/v1/sizings/{sizingId}", summary: "Remove a saved sizing", access: "who may edit the job", responses: { "204": "Deleted", ...common } },
   { method: "get", path: "/api/v1/circuits/{circuitId}/export", summary: "Download the document with its readings as one JSON file", access: "who may read the job", responses: { "200": "The export file", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/readings.csv", summary: "The readings with the model's prediction and verdict, as CSV", access: "who may read the job", responses: { "200": "text/csv", "409": "The stored document no longer loads", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/results.csv", summary: "Every part and cable solved in every operating state, as CSV", access: "who may read the job", responses: { "200": "text/csv", "409": "The stored document no longer loads", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}/report.pdf", summary: "The job report as a PDF (?inline=1 to view it in the browser)", access: "who may read the job", responses: { "200": "application/pdf", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/report/email", summary: "E-mail the report as a PDF, with an optional read-only link", access: "who may edit the job", body: emailReportInput, responses: { "202": "Queued in the outbox", "403": "Read-only role", "429": "Too many reports sent in the last hour", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}/share-links", summary: "A job's read-only links (never their tokens)", access: "who may read the job", responses: { "200": "Links", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/share-links", summary: "Make a read-only link to the job or one circuit; the URL is in this answer only", access: "who may edit the job", body: createShareLinkInput, responses: { "201": "The link with its url", "403": "Read-only role", ...common } },
+  { method: "get", path: "/api/v1/share-links/{linkId}", summary: "One share link", access: "who may read the job", responses: { "200": "The link", ...common } },
+  { method: "delete", path: "/api/v1/share-links/{linkId}", summary: "Revoke a share link (it answers 404 from then on)", access: "who may edit the job", responses: { "200": "The revoked link", "403": "Read-only role", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },
 ];

@@ -18,6 +18,12 @@ import * as jobsRoute from "@/app/api/v1/jobs/route";
 import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
 import * as sizingRoute from "@/app/api/v1/sizings/[sizingId]/route";
+import * as reportPdf from "@/app/api/v1/jobs/[jobId]/report.pdf/route";
+import * as reportEmail from "@/app/api/v1/jobs/[jobId]/report/email/route";
+import * as jobShares from "@/app/api/v1/jobs/[jobId]/share-links/route";
+import * as shareRoute from "@/app/api/v1/share-links/[linkId]/route";
+import * as readingsCsv from "@/app/api/v1/circuits/[circuitId]/readings.csv/route";
+import * as resultsCsv from "@/app/api/v1/circuits/[circuitId]/results.csv/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
 import { callRoute, removeTestJobs, signInCookie } from "../support/sessions";
@@ -118,7 +124,7 @@ describe("the permission table for organisation routes", () => {
 describe("the permission table for work routes (jobs, circuits, revisions, readings, sizings)", () => {
   // Each row runs against a job owned by one person: roles that see all work may read it, roles that see only their
   // own work get 404 on another's, read-only roles get 403 on a change; outsiders 404; signed out 401.
-  type Fx = { jobId: string; circuitId: string; readingId: string; sizingId: string };
+  type Fx = { jobId: string; circuitId: string; readingId: string; sizingId: string; shareLinkId: string };
   const sizing = { title: "Light bar feed", inputs: { current: "20 A" }, request: { systemVoltage: 12, currentA: 20, lengthM: 6 } };
   type WorkRow = { name: string; need: "read" | "edit"; ok: number; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
   const R = (f: unknown) => f as Handler;
@@ -132,7 +138,8 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     const circuitId = (await c.json()).circuit.id;
     const r = await callRoute(R(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 12.6 }, params: { circuitId }, cookie: ownerCookie });
     const z = await callRoute(R(jobSizings.POST), { json: sizing, params: { jobId }, cookie: ownerCookie });
-    return { jobId, circuitId, readingId: (await r.json()).reading.id, sizingId: (await z.json()).sizing.id };
+    const s = await callRoute(R(jobShares.POST), { json: { expiresInDays: 1 }, params: { jobId }, cookie: ownerCookie });
+    return { jobId, circuitId, readingId: (await r.json()).reading.id, sizingId: (await z.json()).sizing.id, shareLinkId: (await s.json()).link.id };
   }
   const putDoc = async (cookie: string | undefined, circuitId: string) => {
     const req = new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/x`, {
@@ -170,6 +177,19 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     { name: "GET sizing", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(sizingRoute.GET), { params: { sizingId: fx.sizingId }, cookie }) },
     { name: "POST sizing", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(jobSizings.POST), { json: sizing, params: { jobId: fx.jobId }, cookie }) },
     { name: "DELETE sizing", need: "edit", ok: 204, call: (cookie, fx) => callRoute(R(sizingRoute.DELETE), { method: "DELETE", params: { sizingId: fx.sizingId }, cookie }) },
+    { name: "GET report PDF", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(reportPdf.GET), { params: { jobId: fx.jobId }, cookie }) },
+    { name: "GET readings CSV", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(readingsCsv.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET results CSV", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(resultsCsv.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    {
+      name: "POST report e-mail",
+      need: "edit",
+      ok: 202,
+      call: (cookie, fx) => callRoute(R(reportEmail.POST), { json: { to: "permission-table@customer.example" }, params: { jobId: fx.jobId }, cookie }),
+    },
+    { name: "GET share links", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(jobShares.GET), { params: { jobId: fx.jobId }, cookie }) },
+    { name: "POST share link", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(jobShares.POST), { json: { circuitId: fx.circuitId }, params: { jobId: fx.jobId }, cookie }) },
+    { name: "GET share link", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(shareRoute.GET), { params: { linkId: fx.shareLinkId }, cookie }) },
+    { name: "DELETE share link", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(shareRoute.DELETE), { method: "DELETE", params: { linkId: fx.shareLinkId }, cookie }) },
   ];
 
   const cases = [
