@@ -7,6 +7,12 @@ const envSchema = z.object({
   NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
   SMTP_URL: z.string().default("smtp://127.0.0.1:1025"),
   MAIL_FROM: z.string().default("Ampwright <no-reply@ampwright.invalid>"),
+  /** Object storage for photos and PDFs: any S3-compatible store (npm start and npm test run s3rver on loopback). */
+  S3_ENDPOINT: z.string().url().default("http://127.0.0.1:4569"),
+  S3_REGION: z.string().default("us-east-1"),
+  S3_BUCKET: z.string().min(3).default("ampwright"),
+  S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
+  S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
   /** Signs sessions; required in production (npm start generates one for local runs). */
   BETTER_AUTH_SECRET: z.preprocess(
     (v) => (v === "" ? undefined : v), // an empty line copied from .env.example means "not set"

@@ -56,6 +56,33 @@ start_maildev() {
   say "the mail catcher did not start; see $log"; return 1
 }
 
+# The local S3 stand-in (s3rver) on loopback, with the bucket made at start and CORS open to the app's origin only,
+# so the browser can PUT to presigned URLs. Sets S3RVER_PID.
+start_s3rver() {
+  local port="$1" dir="$2" bucket="$3" origin="$4" log="$5"
+  if port_busy "$port"; then
+    say "object store port $port is in use; set AMP_S3_PORT"; return 1
+  fi
+  mkdir -p "$dir"
+  cat >"$dir.cors.xml" <<XML
+<CORSConfiguration>
+  <CORSRule>
+    <AllowedOrigin>$origin</AllowedOrigin>
+    <AllowedMethod>PUT</AllowedMethod>
+    <AllowedMethod>GET</AllowedMethod>
+    <AllowedMethod>HEAD</AllowedMethod>
+    <AllowedHeader>*</AllowedHeader>
+    <ExposeHeader>ETag</ExposeHeader>
+    <MaxAgeSeconds>600</MaxAgeSeconds>
+  </CORSRule>
+</CORSConfiguration>
+XML
+  setsid "$ROOT/node_modules/.bin/s3rver" -d "$dir" -a 127.0.0.1 -p "$port" --silent --no-vhost-buckets --configure-bucket "$bucket" "$dir.cors.xml" >"$log" 2>&1 &
+  S3RVER_PID=$!
+  for _ in $(seq 80); do port_busy "$port" && return 0; sleep 0.25; done
+  say "the object store did not start; see $log"; return 1
+}
+
 # A secret for signing sessions, made once per clone for local runs (production sets BETTER_AUTH_SECRET itself).
 local_secret() {
   local f="$ROOT/.data/auth-secret"

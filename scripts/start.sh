@@ -14,6 +14,8 @@ export DEMO="${DEMO:-1}"
 SMTP_PORT="${AMP_SMTP_PORT:-1025}"
 MAIL_WEB_PORT="${AMP_MAIL_WEB_PORT:-1080}"
 export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$SMTP_PORT}"
+S3_PORT="${AMP_S3_PORT:-4569}"
+export S3_ENDPOINT="${S3_ENDPOINT:-http://127.0.0.1:$S3_PORT}" S3_BUCKET="${S3_BUCKET:-ampwright}"
 
 if port_busy "$PORT"; then
   say "port $PORT is already in use (another npm start?). Stop it, or run: PORT=3001 npm start"; exit 1
@@ -24,11 +26,13 @@ ensure_node_modules
 
 SERVER_PID=""
 MAILDEV_PID=""
+S3RVER_PID=""
 cleanup() {
   trap - INT TERM EXIT
   say "stopping"
   stop_group "$SERVER_PID"
   stop_group "$MAILDEV_PID"
+  stop_group "$S3RVER_PID"
   bash scripts/db.sh stop || true
   say "stopped"
 }
@@ -37,6 +41,7 @@ trap cleanup INT TERM EXIT
 export BETTER_AUTH_SECRET="${BETTER_AUTH_SECRET:-$(local_secret)}"
 bash scripts/db.sh start
 start_maildev "$SMTP_PORT" "$MAIL_WEB_PORT" "$ROOT/.data/maildev.log"
+[ -n "${AMP_EXTERNAL_S3:-}" ] || start_s3rver "$S3_PORT" "$ROOT/.data/s3" "$S3_BUCKET" "$APP_URL" "$ROOT/.data/s3rver.log"
 say "applying migrations"
 node_modules/.bin/tsx db/migrate.ts
 node_modules/.bin/tsx db/seed.ts
@@ -59,6 +64,7 @@ cat >&2 <<MSG
     - Check http://127.0.0.1:$PORT/api/health: it says whether the database is up.
     - Mail Ampwright sends (sign-up confirmations, password resets) lands in the local inbox at
       http://127.0.0.1:$MAIL_WEB_PORT
+    - Photos and PDFs attached to jobs go to a local S3 stand-in (s3rver) at $S3_ENDPOINT, kept in .data/s3.
     - The demo holds an invented shop (Larkspur Road Auto Electric) and class (Fernmoor Technical Institute)
       with their vehicles. Sign in at http://127.0.0.1:$PORT/sign-in as any of these, password larkspur-demo-2026:
         dana@larkspur.example (shop owner)     tobias@larkspur.example (shop lead)

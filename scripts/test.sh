@@ -15,6 +15,9 @@ export NEXT_DIST_DIR=.next-test
 export AMP_SMTP_PORT=2526 AMP_MAIL_WEB_PORT=2581
 export SMTP_URL="smtp://127.0.0.1:$AMP_SMTP_PORT"
 export MAILDEV_API="http://127.0.0.1:$AMP_MAIL_WEB_PORT"
+export AMP_S3_PORT="${AMP_S3_PORT:-4579}" S3_BUCKET=ampwright-test
+export S3_ENDPOINT="http://127.0.0.1:$AMP_S3_PORT"
+S3_DIR="$ROOT/.data/s3-test"
 export BETTER_AUTH_SECRET="test-secret-$(date +%s)-0123456789abcdefghijklmnop"
 REPORTS="$ROOT/test-artifacts/reports"
 START=$(date +%s)
@@ -29,10 +32,13 @@ set +e
 
 SERVER_PID=""
 MAILDEV_PID=""
+S3RVER_PID=""
 cleanup() {
   trap - INT TERM EXIT
   stop_group "$SERVER_PID"
   stop_group "$MAILDEV_PID"
+  stop_group "$S3RVER_PID"
+  rm -rf "$S3_DIR" "$S3_DIR.cors.xml"
   # The outbox test restarts the catcher, so also stop whatever listens on its port now.
   pkill -f "maildev --smtp $AMP_SMTP_PORT " 2>/dev/null || true
   bash scripts/db.sh destroy >/dev/null 2>&1 || true
@@ -44,6 +50,8 @@ rm -rf "$REPORTS"; mkdir -p "$REPORTS"
 bash scripts/db.sh destroy >/dev/null 2>&1 || true
 bash scripts/db.sh start || { echo "0 passed, 1 failed"; exit 1; }
 start_maildev "$AMP_SMTP_PORT" "$AMP_MAIL_WEB_PORT" "$REPORTS/maildev.log" || { echo "0 passed, 1 failed"; exit 1; }
+rm -rf "$S3_DIR"
+start_s3rver "$AMP_S3_PORT" "$S3_DIR" "$S3_BUCKET" "$APP_URL" "$REPORTS/s3rver.log" || { echo "0 passed, 1 failed"; exit 1; }
 
 check() { # name, command...: a step that is one check in the count
   local name="$1"; shift

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { circuitSchemaV1 } from "@/lib/circuit";
 import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
+import { startUploadInput } from "@/lib/validators/attachments";
 import { createShareLinkInput, emailReportInput } from "@/lib/validators/sharing";
 import { solveRequest } from "@/lib/validators/solve";
 import {
@@ -71,6 +72,12 @@ export const OPERATIONS: Op[] = [
   { method: "post", path: "/api/v1/jobs/{jobId}/share-links", summary: "Make a read-only link to the job or one circuit; the URL is in this answer only", access: "who may edit the job", body: createShareLinkInput, responses: { "201": "The link with its url", "403": "Read-only role", ...common } },
   { method: "get", path: "/api/v1/share-links/{linkId}", summary: "One share link", access: "who may read the job", responses: { "200": "The link", ...common } },
   { method: "delete", path: "/api/v1/share-links/{linkId}", summary: "Revoke a share link (it answers 404 from then on)", access: "who may edit the job", responses: { "200": "The revoked link", "403": "Read-only role", ...common } },
+  { method: "get", path: "/api/v1/jobs/{jobId}/attachments", summary: "The job's photos and PDFs (finished uploads), each with the reading it belongs to", access: "who may read the job", responses: { "200": "Attachments", ...common } },
+  { method: "post", path: "/api/v1/jobs/{jobId}/attachments", summary: "Start an upload: a record and a presigned URL to PUT the file to, then POST its complete URL", access: "who may edit the job", body: startUploadInput, responses: { "201": "The upload URL and headers", "403": "Read-only role", ...common } },
+  { method: "get", path: "/api/v1/attachments/{attachmentId}", summary: "One attachment: type read from its bytes, size, SHA-256, who and when", access: "who may read the job", responses: { "200": "The attachment", ...common } },
+  { method: "delete", path: "/api/v1/attachments/{attachmentId}", summary: "Remove a file from storage and the job", access: "who may edit the job", responses: { "204": "Deleted", "403": "Read-only role", ...common } },
+  { method: "post", path: "/api/v1/attachments/{attachmentId}/complete", summary: "Finish an upload: check type and size from the stored bytes, make a thumbnail", access: "who may edit the job", responses: { "200": "The attachment", "409": "Nothing uploaded yet", ...common, "422": "Too large, empty or not a photo or PDF (the file is removed)" } },
+  { method: "get", path: "/api/v1/attachments/{attachmentId}/file", summary: "Redirect to a short-lived URL of the file (?variant=thumbnail, ?download=1)", access: "who may read the job", responses: { "302": "Presigned URL", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },
 ];

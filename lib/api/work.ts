@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { db } from "@/db";
 import { findMembership, listMemberships } from "@/db/queries/organizations";
+import { attachmentAccess } from "@/db/queries/attachments";
 import { shareLinkAccess } from "@/db/queries/sharing";
 import { circuitAccess, jobAccess, readCircuitFor, readingAccess, sizingAccess, type WorkAccess } from "@/db/queries/work";
 import { can } from "@/lib/auth/permissions";
@@ -17,8 +18,8 @@ export function workRights(role: string, isOwn: boolean) {
   };
 }
 
-type Resource = "job" | "circuit" | "reading" | "sizing" | "share";
-export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string };
+type Resource = "job" | "circuit" | "reading" | "sizing" | "share" | "attachment";
+export type WorkTarget = { organizationId: string; ownerId: string | null; jobId: string; circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string; attachmentId?: string };
 export type CircuitRecord = NonNullable<Awaited<ReturnType<typeof readCircuitFor>>>;
 type WorkCtx<TBody> = {
   req: Request;
@@ -31,7 +32,7 @@ type WorkCtx<TBody> = {
   circuit?: CircuitRecord;
 };
 
-type Found = WorkAccess & { circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string };
+type Found = WorkAccess & { circuitId?: string; readingId?: string; sizingId?: string; shareLinkId?: string; attachmentId?: string };
 const lookups: Record<Resource, { param: string; find: (id: string, userId: string) => Promise<Found | undefined>; missing: string }> = {
   job: { param: "jobId", find: (id, userId) => jobAccess(db, id, userId), missing: "There is no such job, or it is not yours to see." },
   circuit: {
@@ -60,6 +61,11 @@ const lookups: Record<Resource, { param: string; find: (id: string, userId: stri
     find: (id, userId) => shareLinkAccess(db, id, userId),
     missing: "There is no such share link, or it is not yours to see.",
   },
+  attachment: {
+    param: "attachmentId",
+    find: (id, userId) => attachmentAccess(db, id, userId),
+    missing: "There is no such attachment, or it is not yours to see.",
+  },
 };
 
 /**
@@ -83,7 +89,7 @@ export function workRoute<S extends z.ZodType | undefined = undefined>(
       found?.role ? { organizationId: found.organizationId, role: found.role, kind: found.organizationKind, name: found.organizationName } : undefined;
     const rights = membership && found ? workRights(membership.role, found.ownerId === user.id) : undefined;
     if (!found || !membership || !rights?.read) throw new ApiError(404, "not-found", lookup.missing);
-    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId, sizingId: found.sizingId, shareLinkId: found.shareLinkId };
+    const target: WorkTarget = { organizationId: found.organizationId, ownerId: found.ownerId, jobId: found.jobId, circuitId: found.circuitId, readingId: found.readingId, sizingId: found.sizingId, shareLinkId: found.shareLinkId, attachmentId: found.attachmentId };
     if (options.need === "edit" && !rights.edit) {
       throw new ApiError(403, "forbidden", `Your role (${membership.role}) in ${membership.name} lets you read this work but not change it.`);
     }

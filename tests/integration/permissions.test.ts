@@ -1,5 +1,8 @@
 import { Pool } from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import * as attachmentDone from "@/app/api/v1/attachments/[attachmentId]/complete/route";
+import * as attachmentFile from "@/app/api/v1/attachments/[attachmentId]/file/route";
+import * as attachmentRoute from "@/app/api/v1/attachments/[attachmentId]/route";
 import * as invitations from "@/app/api/v1/organizations/[orgId]/invitations/route";
 import * as members from "@/app/api/v1/organizations/[orgId]/members/route";
 import * as member from "@/app/api/v1/organizations/[orgId]/members/[memberId]/route";
@@ -20,6 +23,7 @@ import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
 import * as sizingRoute from "@/app/api/v1/sizings/[sizingId]/route";
 import * as reportPdf from "@/app/api/v1/jobs/[jobId]/report.pdf/route";
 import * as reportEmail from "@/app/api/v1/jobs/[jobId]/report/email/route";
+import * as jobAttachments from "@/app/api/v1/jobs/[jobId]/attachments/route";
 import * as jobShares from "@/app/api/v1/jobs/[jobId]/share-links/route";
 import * as shareRoute from "@/app/api/v1/share-links/[linkId]/route";
 import * as readingsCsv from "@/app/api/v1/circuits/[circuitId]/readings.csv/route";
@@ -124,13 +128,22 @@ describe("the permission table for organisation routes", () => {
 describe("the permission table for work routes (jobs, circuits, revisions, readings, sizings)", () => {
   // Each row runs against a job owned by one person: roles that see all work may read it, roles that see only their
   // own work get 404 on another's, read-only roles get 403 on a change; outsiders 404; signed out 401.
-  type Fx = { jobId: string; circuitId: string; readingId: string; sizingId: string; shareLinkId: string };
+  type Fx = { jobId: string; circuitId: string; readingId: string; sizingId: string; shareLinkId: string; attachmentId: string };
   const sizing = { title: "Light bar feed", inputs: { current: "20 A" }, request: { systemVoltage: 12, currentA: 20, lengthM: 6 } };
-  type WorkRow = { name: string; need: "read" | "edit"; ok: number; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
+  type WorkRow = { name: string; need: "read" | "edit"; ok: number; file?: true; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
   const R = (f: unknown) => f as Handler;
   const doc = { schema: "ampwright.circuit/1", name: "Perm check", systemVoltage: 12, components: [{ id: "B1", kind: "battery", openCircuitVoltage: 12.6, internalResistance: 0.01 }], wires: [] };
 
-  async function fixture(ownerCookie: string, orgId: string): Promise<Fx> {
+  /** A finished upload of a small PNG (through the presigned URL to the object store, as the browser sends it). */
+  async function attach(ownerCookie: string, jobId: string): Promise<string> {
+    const png = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg==", "base64");
+    const started = await (await callRoute(R(jobAttachments.POST), { json: { fileName: "p.png", contentType: "image/png", sizeBytes: png.length }, params: { jobId }, cookie: ownerCookie })).json();
+    await fetch(started.upload.url, { method: "PUT", headers: started.upload.headers, body: new Uint8Array(png) });
+    expect((await callRoute(R(attachmentDone.POST), { method: "POST", params: { attachmentId: started.attachment.id }, cookie: ownerCookie })).status).toBe(200);
+    return started.attachment.id;
+  }
+
+  async function fixture(ownerCookie: string, orgId: string, file = false): Promise<Fx> {
     const job = await callRoute(R(jobsRoute.POST), { json: { organizationId: orgId, title: "Permission fixture" }, cookie: ownerCookie });
     expect(job.status).toBe(201);
     const jobId = (await job.json()).job.id;
@@ -139,7 +152,8 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     const r = await callRoute(R(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 12.6 }, params: { circuitId }, cookie: ownerCookie });
     const z = await callRoute(R(jobSizings.POST), { json: sizing, params: { jobId }, cookie: ownerCookie });
     const s = await callRoute(R(jobShares.POST), { json: { expiresInDays: 1 }, params: { jobId }, cookie: ownerCookie });
-    return { jobId, circuitId, readingId: (await r.json()).reading.id, sizingId: (await z.json()).sizing.id, shareLinkId: (await s.json()).link.id };
+    const attachmentId = file ? await attach(ownerCookie, jobId) : "";
+    return { jobId, circuitId, readingId: (await r.json()).reading.id, sizingId: (await z.json()).sizing.id, shareLinkId: (await s.json()).link.id, attachmentId };
   }
   const putDoc = async (cookie: string | undefined, circuitId: string) => {
     const req = new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/x`, {
@@ -190,6 +204,17 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     { name: "POST share link", need: "edit", ok: 201, call: (cookie, fx) => callRoute(R(jobShares.POST), { json: { circuitId: fx.circuitId }, params: { jobId: fx.jobId }, cookie }) },
     { name: "GET share link", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(shareRoute.GET), { params: { linkId: fx.shareLinkId }, cookie }) },
     { name: "DELETE share link", need: "edit", ok: 200, call: (cookie, fx) => callRoute(R(shareRoute.DELETE), { method: "DELETE", params: { linkId: fx.shareLinkId }, cookie }) },
+    { name: "GET attachments", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(jobAttachments.GET), { params: { jobId: fx.jobId }, cookie }) },
+    {
+      name: "POST attachment",
+      need: "edit",
+      ok: 201,
+      call: (cookie, fx) => callRoute(R(jobAttachments.POST), { json: { fileName: "q.jpg", contentType: "image/jpeg", sizeBytes: 2000 }, params: { jobId: fx.jobId }, cookie }),
+    },
+    { name: "GET attachment", need: "read", ok: 200, file: true, call: (cookie, fx) => callRoute(R(attachmentRoute.GET), { params: { attachmentId: fx.attachmentId }, cookie }) },
+    { name: "GET attachment file", need: "read", ok: 302, file: true, call: (cookie, fx) => callRoute(R(attachmentFile.GET), { params: { attachmentId: fx.attachmentId }, cookie }) },
+    { name: "POST attachment complete", need: "edit", ok: 200, file: true, call: (cookie, fx) => callRoute(R(attachmentDone.POST), { method: "POST", params: { attachmentId: fx.attachmentId }, cookie }) },
+    { name: "DELETE attachment", need: "edit", ok: 204, file: true, call: (cookie, fx) => callRoute(R(attachmentRoute.DELETE), { method: "DELETE", params: { attachmentId: fx.attachmentId }, cookie }) },
   ];
 
   const cases = [
@@ -205,11 +230,11 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
           const seesAll = p.role !== "student";
           const edits = p.role === "owner" || p.role === "lead" || p.role === "technician" || (p.role === "student" && own);
           const want = !seesAll && !own ? 404 : row.need === "edit" && !edits ? 403 : row.ok;
-          const fx = await fixture(cookies[c.ownerEmail], c.org);
+          const fx = await fixture(cookies[c.ownerEmail], c.org, row.file);
           const res = await row.call(cookies[p.email], fx);
           expect(res.status, `${p.role} ${p.email}`).toBe(want);
         }
-        const fx = await fixture(cookies[c.ownerEmail], c.org);
+        const fx = await fixture(cookies[c.ownerEmail], c.org, row.file);
         expect((await row.call(cookies[c.outsider], fx)).status, "outsider").toBe(404);
         expect((await row.call(undefined, fx)).status, "signed out").toBe(401);
       });

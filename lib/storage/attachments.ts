@@ -1,0 +1,65 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { fileTypeFromBuffer } from "file-type";
+import sharp from "sharp";
+import { db } from "@/db";
+import { attachmentKeys, deleteAttachmentRow, getAttachment, markAttachmentReady } from "@/db/queries/attachments";
+import { ApiError } from "@/lib/api/errors";
+import { ATTACHMENT_TYPES, isAttachmentType, MAX_ATTACHMENT_BYTES } from "@/lib/validators/attachments";
+import { deleteObject, objectSize, readObject, writeObject } from "./s3";
+
+/** Thumbnails: at most 320 px on the long side, WebP. */
+const THUMB_PX = 320;
+/** Types sharp (as shipped on npm) can read for a thumbnail; HEIC is kept without one. */
+const THUMBNAILED = new Set(["image/jpeg", "image/png", "image/webp"]);
+
+const mb = (n: number) => `${(n / 1024 / 1024).toFixed(1)} MB`;
+
+/**
+ * Finishes an upload: reads the object the browser put in storage, works out its type from its bytes (never from
+ * the name or the declared type), refuses anything over 15 MB or not a photo or PDF (deleting the object and the
+ * record), records size and SHA-256, and makes a thumbnail for photos.
+ */
+export async function finishUpload(p: { id: string; organizationId: string; jobId: string; userId: string }) {
+  const keys = await attachmentKeys(db, p.id);
+  if (!keys) throw new ApiError(404, "not-found", "There is no such attachment.");
+  if (keys.status === "ready") return getAttachment(db, p.id);
+  const size = await objectSize(keys.objectKey);
+  if (size === undefined) throw new ApiError(409, "not-uploaded", "The file has not reached storage yet: upload it to the URL you were given, then finish the upload.");
+  const refuse = async (code: string, message: string): Promise<never> => {
+    await deleteObject(keys.objectKey);
+    await deleteAttachmentRow(db, { ...p, reason: "refused" });
+    throw new ApiError(422, code, message);
+  };
+  if (size > MAX_ATTACHMENT_BYTES) await refuse("too-large", `The file is ${mb(size)}; files are at most 15 MB. Shrink the photo or split the PDF, then attach it again.`);
+  if (size === 0) await refuse("empty", "The file is empty; choose the file again.");
+  const bytes = await readObject(keys.objectKey);
+  const sniffed = await fileTypeFromBuffer(bytes);
+  if (!sniffed || !isAttachmentType(sniffed.mime)) {
+    const what = sniffed ? `a ${sniffed.ext.toUpperCase()} file (${sniffed.mime})` : "not a file type Ampwright recognises";
+    await refuse("wrong-type", `"${keys.fileName}" is ${what}, whatever its name says. Attach a photo (${Object.values(ATTACHMENT_TYPES).slice(0, 5).join(", ")}) or a PDF.`);
+  }
+  const type = sniffed!.mime;
+  let thumbnailKey: string | null = null;
+  if (THUMBNAILED.has(type)) {
+    try {
+      const thumb = await sharp(bytes).rotate().resize(THUMB_PX, THUMB_PX, { fit: "inside", withoutEnlargement: true }).webp({ quality: 72 }).toBuffer();
+      thumbnailKey = `${keys.objectKey}.thumb.webp`;
+      await writeObject(thumbnailKey, thumb, "image/webp");
+    } catch {
+      // A photo sharp cannot read (a damaged file) is still kept; it shows as a file without a picture.
+      thumbnailKey = null;
+    }
+  }
+  await markAttachmentReady(db, { ...p, contentType: type, sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex"), thumbnailKey, fileName: keys.fileName });
+  return getAttachment(db, p.id);
+}
+
+/** Removes an attachment's objects and its record. */
+export async function removeAttachment(p: { id: string; organizationId: string; jobId: string; userId: string }) {
+  const keys = await attachmentKeys(db, p.id);
+  if (!keys) return;
+  await deleteObject(keys.objectKey);
+  if (keys.thumbnailKey) await deleteObject(keys.thumbnailKey);
+  await deleteAttachmentRow(db, { ...p, reason: "removed" });
+}
