@@ -5,6 +5,7 @@ import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
+import { ReadingPhotos } from "@/components/jobs/attachments";
 import { IssueList } from "@/components/jobs/job-detail";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { formatDocument, loadCircuit, stateIdsOf, terminalsOf, type CircuitDocument } from "@/lib/circuit";
@@ -170,6 +171,7 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
               <th className={`${th} text-right`}>Model</th>
               <th className={th}>Against the model</th>
               <th className={th}>Note</th>
+              <th className={th}>Photos</th>
               <th className={th}>Taken</th>
               {canEdit ? <th className={th}><span className="sr-only">Remove</span></th> : null}
             </tr>
@@ -189,6 +191,9 @@ function ReadingsSection({ circuit, canEdit }: { circuit: Circuit; canEdit: bool
                   <Verdict check={checks.get(r.id)} />
                 </td>
                 <td className={td}>{r.note}</td>
+                <td className={td}>
+                  <ReadingPhotos jobId={circuit.jobId} readingId={r.id} canEdit={canEdit} />
+                </td>
                 <td className={`${td} text-graphite-700`}>
                   {formatWhen(r.takenAt)}
                   {r.takenByName ? <span className="block text-xs">{r.takenByName}</span> : null}

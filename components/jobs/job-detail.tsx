@@ -11,6 +11,7 @@ import { useCreateCircuit, useImportCircuit } from "@/lib/hooks/circuits";
 import { useDeleteJob, useDeleteSizing, useJob, useSizings, useUpdateJob, type Job } from "@/lib/hooks/jobs";
 import type { ApiClientError } from "@/lib/query/client";
 import { JOB_STATUSES, type JobStatus } from "@/lib/validators/work";
+import { JobFiles } from "./attachments";
 import { JobOutcome } from "./job-outcome";
 import { ShareLinks } from "./share-links";
 import { StatusBadge } from "./status-badge";
@@ -99,6 +100,7 @@ export function JobDetail({ id }: { id: string }) {
       </section>
 
       <JobOutcome job={job} />
+      <JobFiles jobId={job.id} canEdit={job.canEdit} />
       <JobSizings job={job} />
       <ShareLinks job={job} circuits={circuits} />
 
