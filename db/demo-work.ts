@@ -346,3 +346,39 @@ export const demoOutcomes: { jobId: string; findings: string; repair: string }[]
  * at /shared/<token> on a local run. Real links get a random token that is shown once.
  */
 export const DEMO_SHARE_TOKEN = "ampwright-demo-unit-14-battery-light-report";
+
+/**
+ * The class's published lesson: the bench trainer as the instructor drew it, published twice (the second time with
+ * questions), with what the students did with it. Ines's practice job is her copy.
+ */
+export const demoLesson = {
+  id: "lsn_demo_bench",
+  organizationId: "org_demo_class",
+  sourceCircuitId: "cir_demo_bench",
+  publishedBy: "usr_demo_instructor",
+  versions: [
+    {
+      version: 1,
+      daysAgo: 5,
+      title: "Voltage drop on a charging circuit",
+      brief: "Bench trainer B charging at 14.4 V. Predict the drop on the positive side and on the ground side before you measure.",
+      questions: [],
+    },
+    {
+      version: 2,
+      daysAgo: 4,
+      title: "Voltage drop on a charging circuit",
+      brief:
+        "Bench trainer B charging at 14.4 V. Choose \"Charging\" and colour by voltage drop. Predict the drop on the positive side and on the ground side, then find the joint that does the most harm. Make your own copy and loosen that joint to see what the meter would show.",
+      questions: [
+        { prompt: "Which cable or joint drops the most voltage while charging, and how much?" },
+        { prompt: "Why must current be flowing for a voltage-drop test to mean anything?" },
+        { prompt: "What would the battery see if the ground-side joint had ten times its resistance?" },
+      ],
+    },
+  ],
+  activity: [
+    { userId: "usr_demo_student1", openCount: 4, lastVersion: 2, daysAgo: 3, copyJobId: "job_demo_ines" },
+    { userId: "usr_demo_student2", openCount: 1, lastVersion: 2, daysAgo: 2, copyJobId: null },
+  ],
+};

@@ -3,9 +3,9 @@ import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
 import { sizeCable, summarizeSizing } from "@/lib/conductors";
 import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
-import { DEMO_SHARE_TOKEN, demoJobs, demoOutcomes, demoSizings } from "./demo-work";
+import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoSizings } from "./demo-work";
 import { hashShareToken } from "@/lib/report/tokens";
-import { account, auditEvents, circuitRevisions, circuits, jobs, member, organization, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
+import { account, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -115,6 +115,33 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
         label: "Fleet manager",
         createdBy: "usr_demo_tech",
       });
+    },
+  },
+  {
+    name: "demo-lessons-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      const l = demoLesson;
+      const ago = (days: number) => new Date(Date.now() - days * 86_400_000);
+      const document = (await tx.select({ document: circuits.document }).from(circuits).where(eq(circuits.id, l.sourceCircuitId)))[0]?.document;
+      if (!document) return; // the class's demo job was removed before this part ran
+      const last = l.versions[l.versions.length - 1]!;
+      await tx.insert(lessons).values({ id: l.id, organizationId: l.organizationId, sourceCircuitId: l.sourceCircuitId, latestVersion: last.version, createdBy: l.publishedBy, createdAt: ago(l.versions[0]!.daysAgo), updatedAt: ago(last.daysAgo) });
+      for (const v of l.versions) {
+        await tx.insert(lessonVersions).values({ lessonId: l.id, version: v.version, title: v.title, brief: v.brief, questions: v.questions, document, publishedBy: l.publishedBy, publishedAt: ago(v.daysAgo) });
+      }
+      for (const a of l.activity) {
+        await tx.insert(lessonActivity).values({
+          lessonId: l.id,
+          userId: a.userId,
+          openCount: a.openCount,
+          lastVersion: a.lastVersion,
+          firstOpenedAt: ago(a.daysAgo + 1),
+          lastOpenedAt: ago(a.daysAgo),
+          copiedAt: a.copyJobId ? ago(a.daysAgo) : null,
+          copyJobId: a.copyJobId,
+        });
+      }
     },
   },
 ];

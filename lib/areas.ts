@@ -63,7 +63,7 @@ export const areas: Area[] = [
       "Share links for a class; students copy a lesson into their own work.",
       "Predict, measure, compare, conclude: the method, step by step.",
     ],
-    ready: false,
+    ready: true,
   },
 ];
 

@@ -1,11 +1,14 @@
 import type { Metadata } from "next";
-import { AreaPreview } from "@/components/shell/area-preview";
-import { areaByHref } from "@/lib/areas";
+import { LessonsList } from "@/components/lessons/lessons-list";
+import { requireUser } from "@/lib/auth/session";
 
-const area = areaByHref("/lessons");
+export const metadata: Metadata = { title: "Lessons" };
 
-export const metadata: Metadata = { title: area.label };
-
-export default function Page() {
-  return <AreaPreview area={area} />;
+export default async function Page() {
+  await requireUser("/lessons");
+  return (
+    <div className="mx-auto max-w-7xl px-4 py-8 sm:px-6">
+      <LessonsList />
+    </div>
+  );
 }

@@ -7,6 +7,7 @@ import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import { ReadingPhotos } from "@/components/jobs/attachments";
 import { IssueList } from "@/components/jobs/job-detail";
+import { PublishLesson } from "@/components/lessons/publish-lesson";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { formatDocument, loadCircuit, stateIdsOf, terminalsOf, type CircuitDocument } from "@/lib/circuit";
 import { checkReadings, type ReadingCheck } from "@/lib/diagnosis/compare";
@@ -71,6 +72,7 @@ export function CircuitView({ id }: { id: string }) {
 
       <PartsTables doc={doc} />
       <ReadingsSection circuit={circuit} canEdit={canEdit} />
+      <PublishLesson circuitId={circuit.id} circuitName={circuit.name} />
       {canEdit ? <DocumentEditor circuit={circuit} /> : null}
     </div>
   );

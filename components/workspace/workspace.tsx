@@ -75,7 +75,19 @@ export function Workspace({ circuitId }: { circuitId: string }) {
   );
 }
 
-function Editor(props: { circuitId: string; initial: CircuitDocument; version: number; jobId: string; jobTitle: string; canEdit: boolean }) {
+/**
+ * A circuit explored read-only: the same canvas, live solve, states and overlays as the workspace, for a document
+ * that is not a saved circuit of the viewer's (a lesson's snapshot). Nothing can be changed or saved.
+ */
+export function CircuitExplorer({ document, readOnlyNote }: { document: CircuitDocument; readOnlyNote: string }) {
+  return (
+    <ReactFlowProvider>
+      <Editor initial={withPositions(document)} version={0} canEdit={false} readOnlyNote={readOnlyNote} />
+    </ReactFlowProvider>
+  );
+}
+
+function Editor(props: { circuitId?: string; initial: CircuitDocument; version: number; jobId?: string; jobTitle?: string; canEdit: boolean; readOnlyNote?: string }) {
   const flow = useReactFlow();
   const [doc, setDoc] = useState(props.initial);
   const [history, setHistory] = useState<{ past: CircuitDocument[]; future: CircuitDocument[] }>({ past: [], future: [] });
@@ -92,7 +104,7 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
   const base = useRef(props.version);
   const [save, setSave] = useState<SaveState>({ kind: "saved", version: props.version });
   const [conflict, setConflict] = useState<{ mine: CircuitDocument; theirs: StaleVersion; baseVersion: number } | null>(null);
-  const saver = useSaveCircuit(props.circuitId);
+  const saver = useSaveCircuit(props.circuitId ?? "");
   const savedDoc = useRef(props.initial);
   const [savedShown, setSavedShown] = useState(props.initial);
 
@@ -374,15 +386,17 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
     <div className="flex min-h-[calc(100dvh-8rem)] flex-col" onKeyDown={onKeyDown}>
       <div className="flex flex-wrap items-center gap-x-4 gap-y-2 border-b border-graphite-100 bg-paper-raised px-4 py-2">
         <div className="min-w-0">
-          <p className="text-xs text-graphite-500">
-            <Link href={`/jobs/${props.jobId}`} className="underline-offset-2 hover:underline">
-              {props.jobTitle}
-            </Link>{" "}
-            /{" "}
-            <Link href={`/circuits/${props.circuitId}`} className="underline-offset-2 hover:underline">
-              readings and history
-            </Link>
-          </p>
+          {props.jobId ? (
+            <p className="text-xs text-graphite-500">
+              <Link href={`/jobs/${props.jobId}`} className="underline-offset-2 hover:underline">
+                {props.jobTitle}
+              </Link>{" "}
+              /{" "}
+              <Link href={`/circuits/${props.circuitId}`} className="underline-offset-2 hover:underline">
+                readings and history
+              </Link>
+            </p>
+          ) : null}
           <h1 className="truncate text-lg font-semibold" data-testid="ws-title">
             {doc.name}
           </h1>
@@ -434,7 +448,7 @@ function Editor(props: { circuitId: string; initial: CircuitDocument; version: n
         </div>
         <p className="ml-auto text-sm" role="status" data-testid="ws-save">
           {!props.canEdit
-            ? "Read only"
+            ? (props.readOnlyNote ?? "Read only")
             : shownSave.kind === "saved"
               ? `Saved, version ${shownSave.version}`
               : shownSave.kind === "saving"

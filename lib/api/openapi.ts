@@ -2,6 +2,8 @@ import { z } from "zod";
 import { circuitSchemaV1 } from "@/lib/circuit";
 import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
 import { startUploadInput } from "@/lib/validators/attachments";
+import { lessonVersionQuery, publishLessonInput } from "@/lib/validators/lessons";
+import { changeRoleInput, createOrganizationInput, inviteInput, renameOrganizationInput } from "@/lib/validators/organizations";
 import { createShareLinkInput, emailReportInput } from "@/lib/validators/sharing";
 import { solveRequest } from "@/lib/validators/solve";
 import {
@@ -78,6 +80,25 @@ export const OPERATIONS: Op[] = [
   { method: "delete", path: "/api/v1/attachments/{attachmentId}", summary: "Remove a file from storage and the job", access: "who may edit the job", responses: { "204": "Deleted", "403": "Read-only role", ...common } },
   { method: "post", path: "/api/v1/attachments/{attachmentId}/complete", summary: "Finish an upload: check type and size from the stored bytes, make a thumbnail", access: "who may edit the job", responses: { "200": "The attachment", "409": "Nothing uploaded yet", ...common, "422": "Too large, empty or not a photo or PDF (the file is removed)" } },
   { method: "get", path: "/api/v1/attachments/{attachmentId}/file", summary: "Redirect to a short-lived URL of the file (?variant=thumbnail, ?download=1)", access: "who may read the job", responses: { "302": "Presigned URL", ...common } },
+  { method: "get", path: "/api/v1/circuits/{circuitId}/lesson", summary: "Whether the caller may publish this circuit as a lesson, and the lesson made from it", access: "who may read the circuit", responses: { "200": "canPublish and the lesson or null", ...common } },
+  { method: "post", path: "/api/v1/circuits/{circuitId}/lesson", summary: "Publish the circuit as it is now to its class as a lesson (again: a new version)", access: "a class's owner or instructor", body: publishLessonInput, responses: { "201": "The new lesson", "200": "A new version of the lesson", "403": "Not an instructor, or not a class", ...common } },
+  { method: "get", path: "/api/v1/lessons", summary: "Lessons of every class the caller is in (instructors also get counts)", access: "signed in", responses: { "200": "Lessons", "401": "Not signed in" } },
+  { method: "get", path: "/api/v1/lessons/{lessonId}", summary: "A lesson snapshot, read only (?version=n for an earlier one); records the opening", access: "members of the class", query: lessonVersionQuery, responses: { "200": "The snapshot and the list of versions", ...common } },
+  { method: "delete", path: "/api/v1/lessons/{lessonId}", summary: "Withdraw a lesson and its versions (copies stay with their owners)", access: "a class's owner or instructor", responses: { "204": "Withdrawn", "403": "Not an instructor", ...common } },
+  { method: "post", path: "/api/v1/lessons/{lessonId}/copy", summary: "Make the caller's own copy of a snapshot: a job and circuit of theirs (?version=n)", access: "members who may make work in the class", query: lessonVersionQuery, responses: { "201": "The new job and circuit", "403": "Observer", ...common } },
+  { method: "get", path: "/api/v1/lessons/{lessonId}/activity", summary: "Who in the class opened the lesson, which version, and who copied it", access: "a class's owner or instructor", responses: { "200": "People", "403": "Not an instructor", ...common } },
+  { method: "get", path: "/api/v1/organizations", summary: "The shops and classes the caller belongs to, with their role", access: "signed in", responses: { "200": "Organisations", "401": "Not signed in" } },
+  { method: "post", path: "/api/v1/organizations", summary: "Create a shop or a class; the caller becomes its owner", access: "signed in", body: createOrganizationInput, responses: { "201": "The organisation", "401": "Not signed in", "422": "A field needs fixing" } },
+  { method: "get", path: "/api/v1/organizations/{orgId}", summary: "One organisation and the caller's role in it", access: "members", responses: { "200": "The organisation", ...common } },
+  { method: "patch", path: "/api/v1/organizations/{orgId}", summary: "Rename an organisation", access: "owner, lead", body: renameOrganizationInput, responses: { "200": "Renamed", "403": "Role may not", ...common } },
+  { method: "delete", path: "/api/v1/organizations/{orgId}", summary: "Delete an organisation with everything in it", access: "owner", responses: { "204": "Deleted", "403": "Role may not", ...common } },
+  { method: "get", path: "/api/v1/organizations/{orgId}/members", summary: "Who is in the organisation, with their roles", access: "members but students", responses: { "200": "Members", "403": "Role may not", ...common } },
+  { method: "patch", path: "/api/v1/organizations/{orgId}/members/{memberId}", summary: "Change a member's role", access: "owner, lead", body: changeRoleInput, responses: { "200": "Changed", "403": "Role may not, or the owner", ...common } },
+  { method: "delete", path: "/api/v1/organizations/{orgId}/members/{memberId}", summary: "Remove a member", access: "owner, lead", responses: { "204": "Removed", "403": "Role may not, or the owner", ...common } },
+  { method: "get", path: "/api/v1/organizations/{orgId}/invitations", summary: "Pending invitations", access: "owner, lead", responses: { "200": "Invitations", "403": "Role may not", ...common } },
+  { method: "post", path: "/api/v1/organizations/{orgId}/invitations", summary: "Invite by address and role; the mail goes through the outbox", access: "owner, lead", body: inviteInput, responses: { "201": "The invitation", "403": "Role may not", ...common } },
+  { method: "delete", path: "/api/v1/organizations/{orgId}/invitations/{invitationId}", summary: "Revoke a pending invitation", access: "owner, lead", responses: { "204": "Revoked", "403": "Role may not", ...common } },
+  { method: "post", path: "/api/v1/invitations/{invitationId}/accept", summary: "Join the organisation the signed-in user was invited to", access: "the invited address, signed in", responses: { "200": "Joined", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },
 ];

@@ -35,10 +35,10 @@ describe("landing page in Chromium", () => {
   it("opens an area from the navigation and says plainly what it will hold", async () => {
     const page = await browser().newPage({ viewport: { width: 1280, height: 800 } });
     await page.goto(baseUrl, { waitUntil: "networkidle" });
-    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Lessons" }).click();
-    await page.waitForURL(/\/lessons$/);
+    await page.getByRole("navigation", { name: "Main" }).getByRole("link", { name: "Diagnosis" }).click();
+    await page.waitForURL(/\/diagnosis$/);
     await expect(page.getByTestId("area-preview").textContent()).resolves.toContain("Being built");
-    await expect(page.getByRole("link", { name: "Lessons" }).getAttribute("aria-current")).resolves.toBe("page");
+    await expect(page.getByRole("link", { name: "Diagnosis" }).getAttribute("aria-current")).resolves.toBe("page");
     await page.close();
   });
 

@@ -23,6 +23,11 @@ import * as jobSizings from "@/app/api/v1/jobs/[jobId]/sizings/route";
 import * as sizingRoute from "@/app/api/v1/sizings/[sizingId]/route";
 import * as reportPdf from "@/app/api/v1/jobs/[jobId]/report.pdf/route";
 import * as reportEmail from "@/app/api/v1/jobs/[jobId]/report/email/route";
+import * as circuitLesson from "@/app/api/v1/circuits/[circuitId]/lesson/route";
+import * as lessonActivity from "@/app/api/v1/lessons/[lessonId]/activity/route";
+import * as lessonCopy from "@/app/api/v1/lessons/[lessonId]/copy/route";
+import * as lessonRoute from "@/app/api/v1/lessons/[lessonId]/route";
+import * as lessonsRoute from "@/app/api/v1/lessons/route";
 import * as jobAttachments from "@/app/api/v1/jobs/[jobId]/attachments/route";
 import * as jobShares from "@/app/api/v1/jobs/[jobId]/share-links/route";
 import * as shareRoute from "@/app/api/v1/share-links/[linkId]/route";
@@ -252,5 +257,53 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     expect(new Set(lena.map((j) => j.ownerId))).toEqual(new Set(["usr_demo_student1", "usr_demo_student2"]));
     expect((await callRoute(R(jobsRoute.GET), { path: `/api/v1/jobs?organizationId=${demoClass.id}`, cookie: cookies["priya@larkspur.example"] })).status).toBe(404);
     expect((await callRoute(R(jobsRoute.GET), { path: `/api/v1/jobs?organizationId=${demoClass.id}` })).status).toBe(401);
+  });
+});
+
+describe("the permission table for lessons", () => {
+  // Lessons live in a class: every member reads them; making a copy needs the right to make work; instructors
+  // (owner, lead) publish, see activity and withdraw. Anyone outside the class gets 404; signed out, 401.
+  const R = (f: unknown) => f as Handler;
+  const doc = { schema: "ampwright.circuit/1", name: "Lesson perm check", systemVoltage: 12, components: [{ id: "B1", kind: "battery", openCircuitVoltage: 12.6, internalResistance: 0.01 }], wires: [] };
+  type Fx = { circuitId: string; lessonId: string };
+  async function fixture(): Promise<Fx> {
+    const lena = cookies["lena@fernmoor.example"];
+    const job = await callRoute(R(jobsRoute.POST), { json: { organizationId: demoClass.id, title: "Lesson permission fixture" }, cookie: lena });
+    const jobId = (await job.json()).job.id;
+    const c = await callRoute(R(jobCircuits.POST), { json: { document: doc }, params: { jobId }, cookie: lena });
+    const circuitId = (await c.json()).circuit.id;
+    const l = await callRoute(R(circuitLesson.POST), { json: { title: "Permission lesson" }, params: { circuitId }, cookie: lena });
+    return { circuitId, lessonId: (await l.json()).lesson.id };
+  }
+  type LessonRow = { name: string; expect: Record<string, number>; call: (cookie: string | undefined, fx: Fx) => Promise<Response> };
+  const lessonRows: LessonRow[] = [
+    { name: "GET lessons", expect: { owner: 200, lead: 200, student: 200, viewer: 200 }, call: (cookie) => callRoute(R(lessonsRoute.GET), { cookie }) },
+    { name: "GET lesson", expect: { owner: 200, lead: 200, student: 200, viewer: 200 }, call: (cookie, fx) => callRoute(R(lessonRoute.GET), { params: { lessonId: fx.lessonId }, cookie }) },
+    { name: "POST lesson copy", expect: { owner: 201, lead: 201, student: 201, viewer: 403 }, call: (cookie, fx) => callRoute(R(lessonCopy.POST), { method: "POST", params: { lessonId: fx.lessonId }, cookie }) },
+    { name: "GET lesson activity", expect: { owner: 200, lead: 200, student: 403, viewer: 403 }, call: (cookie, fx) => callRoute(R(lessonActivity.GET), { params: { lessonId: fx.lessonId }, cookie }) },
+    { name: "DELETE lesson", expect: { owner: 204, lead: 204, student: 403, viewer: 403 }, call: (cookie, fx) => callRoute(R(lessonRoute.DELETE), { method: "DELETE", params: { lessonId: fx.lessonId }, cookie }) },
+    // The instructor's circuit is not a student's own work, so a student does not see it at all.
+    { name: "GET circuit lesson", expect: { owner: 200, lead: 200, student: 404, viewer: 200 }, call: (cookie, fx) => callRoute(R(circuitLesson.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    {
+      name: "POST circuit lesson (republish)",
+      expect: { owner: 200, lead: 200, student: 404, viewer: 403 },
+      call: (cookie, fx) => callRoute(R(circuitLesson.POST), { json: { title: "Permission lesson, again" }, params: { circuitId: fx.circuitId }, cookie }),
+    },
+  ];
+  for (const row of lessonRows) {
+    it(`${row.name}: each class role, someone from the shop, and signed out`, async () => {
+      for (const p of demoPeople.filter((x) => x.org === demoClass.id)) {
+        const fx = await fixture();
+        expect((await row.call(cookies[p.email], fx)).status, `${p.role} ${p.email}`).toBe(row.expect[p.role]);
+      }
+      const fx = await fixture();
+      const outsider = await row.call(cookies["priya@larkspur.example"], fx);
+      expect(outsider.status, "outsider").toBe(row.name === "GET lessons" ? 200 : 404);
+      if (row.name === "GET lessons") expect((await outsider.json()).lessons).toEqual([]);
+      expect((await row.call(undefined, fx)).status, "signed out").toBe(401);
+    });
+  }
+  afterAll(async () => {
+    await pool.query("delete from lessons where id <> 'lsn_demo_bench'");
   });
 });

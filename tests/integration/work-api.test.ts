@@ -1,3 +1,5 @@
+import { readdirSync, readFileSync } from "node:fs";
+import path from "node:path";
 import { Pool } from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import * as circuitRoute from "@/app/api/v1/circuits/[circuitId]/route";
@@ -330,5 +332,18 @@ describe("the OpenAPI document", () => {
     expect(put.requestBody.content["application/json"].schema.properties.document.$ref).toBe("#/components/schemas/CircuitDocument");
     expect(doc.components.schemas.CircuitDocument.properties.components.type).toBe("array");
     expect(doc.paths["/api/v1/jobs"].post.requestBody.content["application/json"].schema.properties.title.maxLength).toBe(200);
+  });
+
+  it("describes every route handler under app/api/v1, method by method", async () => {
+    const doc = await (await callRoute(h(openapi.GET))).json();
+    const root = path.resolve("app/api/v1");
+    const missing: string[] = [];
+    for (const file of readdirSync(root, { recursive: true, encoding: "utf8" }).filter((f) => f.endsWith("route.ts"))) {
+      const url = `/api/v1/${path.dirname(file)}`.replace(/\[(\w+)\]/g, "{$1}").replace(/\/\.$/, "");
+      if (url === "/api/v1/openapi.json") continue;
+      const methods = [...readFileSync(path.join(root, file), "utf8").matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => m[1]!.toLowerCase());
+      for (const m of methods) if (!doc.paths[url]?.[m]) missing.push(`${m.toUpperCase()} ${url}`);
+    }
+    expect(missing).toEqual([]);
   });
 });

@@ -1,0 +1,19 @@
+import { z } from "zod";
+
+const text = (name: string, max: number) => z.string({ error: `${name} must be text` }).trim().max(max, `${name} is at most ${max} characters`);
+
+/** Publishing a circuit to a class as a lesson, or republishing it as a new snapshot. */
+export const publishLessonInput = z.strictObject({
+  title: text("title", 200).min(2, 'give the lesson a title of at least 2 characters (e.g. "Finding a ground-side drop")'),
+  brief: text("brief", 4000).default(""),
+  questions: z
+    .array(z.strictObject({ prompt: text("prompt", 500).min(3, "a question needs at least 3 characters, or remove it") }), { error: "questions must be a list" })
+    .max(20, "a lesson has at most 20 questions")
+    .default([]),
+});
+export type PublishLessonInput = z.input<typeof publishLessonInput>;
+
+/** Which snapshot of a lesson to open; the latest when not given. */
+export const lessonVersionQuery = z.strictObject({
+  version: z.coerce.number({ error: "version must be a whole number" }).int("version must be a whole number").min(1, "versions start at 1").optional(),
+});
