@@ -59,6 +59,12 @@ export type CircuitLesson = {
   lesson: { id: string; latestVersion: number; title: string; brief: string; questions: { prompt: string }[]; publishedAt: string | null } | null;
 };
 
+/**
+ * Everything about lessons except an opened snapshot: refetching that would count as opening it again, and a
+ * snapshot never changes.
+ */
+const notSnapshots = { queryKey: ["lessons"], predicate: (q: { queryKey: readonly unknown[] }) => q.queryKey[1] !== "one" };
+
 export const lessonKeys = {
   all: ["lessons"] as const,
   list: () => ["lessons", "list"] as const,
@@ -91,7 +97,7 @@ export function usePublishLesson(circuitId: string) {
   const qc = useQueryClient();
   return useMutation<{ lesson: { id: string; version: number; url: string } }, ApiClientError, PublishLessonInput>({
     mutationFn: (json) => apiFetch(`/api/v1/circuits/${circuitId}/lesson`, { method: "POST", json }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: lessonKeys.all }),
+    onSuccess: () => qc.invalidateQueries(notSnapshots),
   });
 }
 
@@ -99,7 +105,11 @@ export function useCopyLesson(id: string) {
   const qc = useQueryClient();
   return useMutation<{ copy: { jobId: string; circuitId: string; version: number; url: string } }, ApiClientError, number | undefined>({
     mutationFn: (version) => apiFetch(`/api/v1/lessons/${id}/copy${version ? `?version=${version}` : ""}`, { method: "POST" }),
-    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: lessonKeys.all }), qc.invalidateQueries({ queryKey: jobKeys.all })]),
+    onSuccess: (r) => {
+      // The open lesson learns of the copy without being fetched (and counted) again.
+      qc.setQueriesData<LessonDetail>({ queryKey: ["lessons", "one", id] }, (d) => (d ? { ...d, lesson: { ...d.lesson, myCopyJobId: r.copy.jobId } } : d));
+      return Promise.all([qc.invalidateQueries(notSnapshots), qc.invalidateQueries({ queryKey: jobKeys.all })]);
+    },
   });
 }
 
@@ -107,6 +117,9 @@ export function useDeleteLesson(id: string) {
   const qc = useQueryClient();
   return useMutation<unknown, ApiClientError, void>({
     mutationFn: () => apiFetch(`/api/v1/lessons/${id}`, { method: "DELETE" }),
-    onSuccess: () => qc.invalidateQueries({ queryKey: lessonKeys.all }),
+    onSuccess: () => {
+      qc.removeQueries({ queryKey: ["lessons", "one", id] });
+      return qc.invalidateQueries(notSnapshots);
+    },
   });
 }
