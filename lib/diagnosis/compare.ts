@@ -40,6 +40,8 @@ export type ReadingCheck = {
   /** Why there is no prediction, when there is none. */
   reason?: string;
   path?: PathFigures;
+  /** The cables and connections between the probes, in order from the red lead, even when no resistance follows. */
+  spans?: string[];
   /** Why no resistance could be worked out along the probes' path. */
   pathNote?: string;
   /** Across a battery's own posts: its state of charge at rest, or the charging voltage against the window. */
@@ -144,6 +146,7 @@ export function checkReadings(doc: CircuitDocument, readings: Reading[]): Readin
       check.pathNote = "the probes do not span only cables and connections, so no resistance is worked out";
       return check;
     }
+    check.spans = steps.map((s) => s.edge.id);
     // Current along the path, signed in the direction from the red lead.
     const along = steps.map((s) => (s.forward ? s.edge.current : -s.edge.current));
     const modelI = along[0];

@@ -1,0 +1,102 @@
+import { describe, expect, it } from "vitest";
+import { benchTrainer, pickupCharging, tractorStarting } from "@/db/demo-work";
+import type { CircuitDocument } from "@/lib/circuit";
+import type { Reading } from "@/lib/diagnosis/compare";
+import { BUILT_IN_PLANS, planById, planSchema, runPlan, stateFor, terminalFor } from "@/lib/diagnosis/plans";
+import { solveCircuit } from "@/lib/solver";
+
+const charging = planById("charging")!;
+const starting = planById("starting")!;
+
+/** The unit 14 pickup as designed: its alternator bracket joint healthy (0.3 mΩ, invented demo value). */
+const healthy: CircuitDocument = { ...pickupCharging, components: pickupCharging.components.map((c) => (c.id === "JAC" ? { ...c, resistance: 0.0003 } : c)) };
+
+let n = 0;
+const reading = (stateId: string, positive: string, negative: string, value: number): Reading => ({ id: `r${++n}`, stateId, positive, negative, value, unit: "V", currentA: null });
+
+describe("guided test plans", () => {
+  it("are data that their own schema accepts, and find their parts and states in a drawn circuit", () => {
+    for (const plan of BUILT_IN_PLANS) expect(planSchema.parse(plan)).toEqual(plan);
+    expect(terminalFor(healthy, { kind: "alternator", terminal: "out" })).toBe("A1.out");
+    expect(stateFor(healthy, "charging")).toBe("charge");
+    expect(stateFor(healthy, "key-on")).toBe("koeo");
+    expect(stateFor(healthy, "rest")).toBe("base");
+    expect(stateFor(tractorStarting, "cranking")).toBe("crank");
+    expect(stateFor(healthy, "cranking")).toBeUndefined();
+  });
+
+  it("finds a bad ground joint: the side's drop fails, then readings across each part name the bracket", () => {
+    // Readings a technician would take; the values are invented for the worked case.
+    const taken = [
+      reading("base", "B1.pos", "B1.neg", 12.6), // about 94 % by the BCI table: good
+      reading("koeo", "A1.out", "B1.neg", 12.5), // within 0.5 V of the rest reading: the feed is there
+      reading("charge", "A1.out", "B1.pos", 0.12), // positive side within 0.3 V (common practice)
+      reading("charge", "B1.neg", "A1.case", 1.05), // ground side far over 0.3 V
+    ];
+    const first = runPlan(charging, healthy, taken);
+    expect(first.steps.map((s) => s.status)).toEqual(["good", "good", "good", "bad", "not-read"]);
+    expect(first.verdict.kind).toBe("ground");
+    // The links of the drawing (zero-ohm W7, W5, W4) are not parts that can go bad.
+    expect(first.verdict.walk?.map((w) => w.id)).toEqual(["JBN", "W6", "JAC"]);
+    expect(first.verdict.suspect).toBeUndefined();
+
+    // Walk the path: across each part, at the model's current in the charging state (arithmetic: V = I x R).
+    const solved = solveCircuit(healthy, { state: "charge" });
+    const iJac = Math.abs(solved.components.JAC!.current!);
+    const iJbn = Math.abs(solved.components.JBN!.current!);
+    const iW6 = Math.abs(solved.wires.W6!.current);
+    const rW6 = solved.wires.W6!.resistance;
+    const walked = [
+      ...taken,
+      reading("charge", "JBN.a", "JBN.b", iJbn * 0.0002), // as designed: 0.2 mΩ
+      reading("charge", "GE.t", "JBN.a", iW6 * rW6), // as designed
+      reading("charge", "JAC.a", "JAC.b", iJac * (0.0003 + 0.03)), // 30 mΩ more than designed
+    ];
+    const second = runPlan(charging, healthy, walked);
+    expect(second.verdict.kind).toBe("ground");
+    expect(second.verdict.suspect?.id).toBe("JAC");
+    expect(second.verdict.suspect!.extraOhm).toBeCloseTo(0.03, 6);
+    expect(second.verdict.title).toContain("Alternator mounting bracket (JAC)");
+    expect(second.verdict.reasons.join(" ")).toContain("Ground side drop while charging");
+  });
+
+  it("judges the battery first: a flat battery is the verdict whatever the drops say", () => {
+    // 12.10 V: 25 + (12.10 - 12.06) / (12.24 - 12.06) x 25 = 30.6 % by the BCI table's straight lines.
+    const r = runPlan(charging, healthy, [reading("base", "B1.pos", "B1.neg", 12.1), reading("charge", "B1.neg", "A1.case", 1.2)]);
+    expect(r.steps[0]!.judged).toContain("about 31 % charged");
+    expect(r.verdict.kind).toBe("battery");
+  });
+
+  it("puts the fault in the unit when the battery, feed and both sides read good but the charging voltage is low", () => {
+    const base = [reading("base", "B1.pos", "B1.neg", 12.6), reading("koeo", "A1.out", "B1.neg", 12.55), reading("charge", "A1.out", "B1.pos", 0.1), reading("charge", "B1.neg", "A1.case", 0.08)];
+    // 12.9 V running: below the 13.5 V floor of the window (common practice).
+    const low = runPlan(charging, healthy, [...base, reading("charge", "B1.pos", "B1.neg", 12.9)]);
+    expect(low.verdict.kind).toBe("unit");
+    expect(low.steps[4]!.judged).toContain("low, not charging enough");
+    // 14.1 V: inside 13.5 to 14.8 V (common practice): nothing found.
+    const fine = runPlan(charging, healthy, [...base, reading("charge", "B1.pos", "B1.neg", 14.1)]);
+    expect(fine.verdict.kind).toBe("none");
+    expect(fine.verdict.reasons.at(-1)).toContain("lamp or sense circuit");
+  });
+
+  it("reads a reversed reading with its sign turned, and a missing feed as the feed", () => {
+    const r = runPlan(charging, healthy, [reading("base", "B1.neg", "B1.pos", -12.6), reading("koeo", "B1.neg", "A1.out", -3.1)]);
+    expect(r.steps[0]!.status).toBe("good");
+    expect(r.steps[1]!.status).toBe("bad");
+    expect(r.verdict.kind).toBe("feed");
+  });
+
+  it("condemns the battery of a starting circuit that falls under 9.6 V while cranking", () => {
+    // 0.8 x 12 V = 9.6 V, the usual load-test floor (common practice).
+    const r = runPlan(starting, tractorStarting, [reading("base", "B1.pos", "B1.neg", 12.62), reading("crank", "B1.pos", "B1.neg", 9.1)]);
+    expect(r.steps[1]!.judged).toContain("9.6 V at least");
+    expect(r.verdict.kind).toBe("battery");
+  });
+
+  it("says what a circuit lacks instead of judging it", () => {
+    const r = runPlan(starting, benchTrainer, []);
+    expect(r.steps[2]!.status).toBe("cannot");
+    expect(r.steps[2]!.missing).toContain("no starter");
+    expect(r.verdict.kind).toBe("incomplete");
+  });
+});
