@@ -311,6 +311,31 @@ export const demoJobs: DemoJob[] = [
 ];
 
 /** Sizings the upfitter kept with the van job, as typed on the sizing page (the answers are worked out at load). */
+/**
+ * A job waiting for the charging-system test plan: drawn as designed (every joint good), with only the resting
+ * battery read so far. Following the plan on it finds its fault from the readings a technician enters.
+ */
+export const demoPlanJobs: DemoJob[] = [
+  {
+    id: "job_demo_unit27",
+    organizationId: "org_demo_shop",
+    ownerId: "usr_demo_tech",
+    vehicleId: null,
+    title: "Battery light, Unit 27",
+    vehicle: "Unit 27, parts van (same charging layout as Unit 14)",
+    complaint: "Battery light comes on at idle with the lights on; goes out when revved. Run the charging-system test plan.",
+    status: "open",
+    daysAgo: 0,
+    circuits: [
+      {
+        id: "cir_demo_unit27_charging",
+        document: { ...withoutFault, name: "Charging circuit (as designed)" },
+        readings: [{ stateId: "base", positive: "B1.pos", negative: "B1.neg", value: 12.58, unit: "V", note: "Resting overnight", by: "usr_demo_tech", minutesAgo: 40 }],
+      },
+    ],
+  },
+];
+
 export const demoSizings: { id: string; jobId: string; by: string; title: string; inputs: Partial<SizingInputs>; minutesAgo: number }[] = [
   {
     id: "siz_demo_van_winch",

@@ -3,13 +3,51 @@ import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
 import { sizeCable, summarizeSizing } from "@/lib/conductors";
 import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
-import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoSizings } from "./demo-work";
+import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoPlanJobs, demoSizings, type DemoJob } from "./demo-work";
 import { hashShareToken } from "@/lib/report/tokens";
 import { account, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
 type Tx = Parameters<Parameters<ScriptDb["transaction"]>[0]>[0];
+
+/** Demo jobs with their circuits, earlier versions and readings, dated back from now. */
+async function insertDemoJobs(tx: Tx, list: DemoJob[]) {
+  const now = Date.now();
+  const ago = (minutes: number) => new Date(now - minutes * 60_000);
+  for (const j of list) {
+    const at = ago(j.daysAgo * 1440);
+    const { circuits: jobCircuits, daysAgo: _d, ...job } = j;
+    void _d;
+    await tx.insert(jobs).values({ ...job, systemVoltage: 12, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
+    await tx.insert(auditEvents).values({ organizationId: j.organizationId, actorId: j.ownerId, action: "job.create", entityType: "job", entityId: j.id, detail: { title: j.title }, createdAt: at });
+    for (const c of jobCircuits) {
+      const versions = [...(c.earlier ?? []), { document: c.document, message: c.earlier ? "Bracket resistance set from the readings" : "Created" }];
+      await tx.insert(circuits).values({ id: c.id, jobId: j.id, name: c.document.name, document: c.document, version: versions.length, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
+      await tx.insert(circuitRevisions).values(
+        versions.map((v, i) => ({ circuitId: c.id, version: i + 1, name: v.document.name, document: v.document, message: v.message, createdBy: j.ownerId, createdAt: new Date(at.getTime() + i * 60_000) })),
+      );
+      if (c.readings.length) {
+        await tx.insert(readings).values(
+          c.readings.map((r, i) => ({
+            id: `rdg_${c.id.slice(4)}_${i + 1}`,
+            circuitId: c.id,
+            stateId: r.stateId,
+            positive: r.positive,
+            negative: r.negative,
+            value: r.value,
+            unit: r.unit,
+            currentA: r.currentA ?? null,
+            note: r.note,
+            takenBy: r.by,
+            takenAt: ago(r.minutesAgo),
+            updatedAt: ago(r.minutesAgo),
+          })),
+        );
+      }
+    }
+  }
+}
 
 /** Each demo part loads once, in its own transaction, recorded in seed_runs. */
 const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
@@ -44,40 +82,7 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
     load: async (tx) => {
       // The jobs belong to the demo people, who exist only where their part loaded.
       if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
-      const now = Date.now();
-      const ago = (minutes: number) => new Date(now - minutes * 60_000);
-      for (const j of demoJobs) {
-        const at = ago(j.daysAgo * 1440);
-        const { circuits: jobCircuits, daysAgo: _d, ...job } = j;
-        void _d;
-        await tx.insert(jobs).values({ ...job, systemVoltage: 12, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
-        await tx.insert(auditEvents).values({ organizationId: j.organizationId, actorId: j.ownerId, action: "job.create", entityType: "job", entityId: j.id, detail: { title: j.title }, createdAt: at });
-        for (const c of jobCircuits) {
-          const versions = [...(c.earlier ?? []), { document: c.document, message: c.earlier ? "Bracket resistance set from the readings" : "Created" }];
-          await tx.insert(circuits).values({ id: c.id, jobId: j.id, name: c.document.name, document: c.document, version: versions.length, createdBy: j.ownerId, updatedBy: j.ownerId, createdAt: at, updatedAt: at });
-          await tx.insert(circuitRevisions).values(
-            versions.map((v, i) => ({ circuitId: c.id, version: i + 1, name: v.document.name, document: v.document, message: v.message, createdBy: j.ownerId, createdAt: new Date(at.getTime() + i * 60_000) })),
-          );
-          if (c.readings.length) {
-            await tx.insert(readings).values(
-              c.readings.map((r, i) => ({
-                id: `rdg_${c.id.slice(4)}_${i + 1}`,
-                circuitId: c.id,
-                stateId: r.stateId,
-                positive: r.positive,
-                negative: r.negative,
-                value: r.value,
-                unit: r.unit,
-                currentA: r.currentA ?? null,
-                note: r.note,
-                takenBy: r.by,
-                takenAt: ago(r.minutesAgo),
-                updatedAt: ago(r.minutesAgo),
-              })),
-            );
-          }
-        }
-      }
+      await insertDemoJobs(tx, demoJobs);
     },
   },
   {
@@ -115,6 +120,13 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
         label: "Fleet manager",
         createdBy: "usr_demo_tech",
       });
+    },
+  },
+  {
+    name: "demo-plan-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      await insertDemoJobs(tx, demoPlanJobs);
     },
   },
   {

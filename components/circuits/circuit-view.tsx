@@ -55,6 +55,9 @@ export function CircuitView({ id }: { id: string }) {
           <Link href={`/circuits/${id}/workspace`} className="rounded-md bg-copper-600 px-3 py-1.5 font-semibold text-white hover:bg-copper-700" data-testid="workspace-link">
             Open in the workspace
           </Link>
+          <Link href={`/circuits/${id}/plan`} className="rounded-md border border-copper-600 px-3 py-1.5 font-medium text-copper-700 hover:bg-copper-50" data-testid="plan-link">
+            Follow a test plan
+          </Link>
           <Link href={`/circuits/${id}/history`} className="rounded-md border border-graphite-300 px-3 py-1.5 font-medium hover:bg-graphite-100" data-testid="history-link">
             History
           </Link>

@@ -64,13 +64,13 @@ function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
 }
 
 /** The circuit workspace: load, edit on the canvas with undo, solve live, and save each change as a new version. */
-export function Workspace({ circuitId }: { circuitId: string }) {
+export function Workspace({ circuitId, focus, state }: { circuitId: string; focus?: string[]; state?: string }) {
   const { data, error } = useCircuit(circuitId);
   if (error) return <Unavailable title="This circuit cannot be opened" message={error.message} className="mx-auto max-w-3xl px-4 py-10" />;
   if (!data) return <p className="px-4 py-10 text-graphite-500">Opening the circuit...</p>;
   return (
     <ReactFlowProvider>
-      <Editor circuitId={circuitId} initial={withPositions(data.circuit.document)} version={data.circuit.version} jobId={data.circuit.jobId} jobTitle={data.circuit.jobTitle} canEdit={data.canEdit} />
+      <Editor circuitId={circuitId} initial={withPositions(data.circuit.document)} version={data.circuit.version} jobId={data.circuit.jobId} jobTitle={data.circuit.jobTitle} canEdit={data.canEdit} focus={focus} initialState={state} />
     </ReactFlowProvider>
   );
 }
@@ -87,11 +87,22 @@ export function CircuitExplorer({ document, readOnlyNote }: { document: CircuitD
   );
 }
 
-function Editor(props: { circuitId?: string; initial: CircuitDocument; version: number; jobId?: string; jobTitle?: string; canEdit: boolean; readOnlyNote?: string }) {
+function Editor(props: {
+  circuitId?: string;
+  initial: CircuitDocument;
+  version: number;
+  jobId?: string;
+  jobTitle?: string;
+  canEdit: boolean;
+  readOnlyNote?: string;
+  /** Parts or cables to choose and centre on when the canvas opens (a test plan's suspect). */
+  focus?: string[];
+  initialState?: string;
+}) {
   const flow = useReactFlow();
   const [doc, setDoc] = useState(props.initial);
   const [history, setHistory] = useState<{ past: CircuitDocument[]; future: CircuitDocument[] }>({ past: [], future: [] });
-  const [stateId, setStateId] = useState("base");
+  const [stateId, setStateId] = useState(props.initialState && stateIdsOf(props.initial).includes(props.initialState) ? props.initialState : "base");
   const [overlay, setOverlay] = useState<Overlay>("drop");
   const [prefs, setPrefs] = usePrefs();
   const [nodes, setNodes] = useState<PartNode[]>([]);
@@ -313,6 +324,17 @@ function Editor(props: { circuitId?: string; initial: CircuitDocument; version: 
     setSelectedEdges(ids.filter((i) => wireIds.has(i)));
     setNodes((ns) => ns.map((n) => ({ ...n, selected: ids.includes(n.id) })));
   }, [doc.wires]);
+
+  // A part asked for in the address (a test plan's suspect): chosen and centred once the canvas has its nodes.
+  const focused = useRef(false);
+  useEffect(() => {
+    if (focused.current || !props.focus?.length || !nodes.length) return;
+    focused.current = true;
+    select(props.focus);
+    const ids = new Set(props.focus);
+    for (const w of doc.wires) if (ids.has(w.id)) [w.from, w.to].forEach((t) => ids.add(t.slice(0, t.lastIndexOf("."))));
+    setTimeout(() => void flow.fitView({ nodes: [...ids].map((id) => ({ id })), maxZoom: 1.2, padding: 0.6, duration: 300 }), 50);
+  }, [nodes.length, props.focus, select, flow, doc.wires]);
 
   const addPart = useCallback(
     (kind: ComponentKind, at?: { x: number; y: number }) => {
