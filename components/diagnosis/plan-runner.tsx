@@ -11,6 +11,7 @@ import { SafetyNote } from "@/components/ui/safety-note";
 import { Unavailable } from "@/components/ui/unavailable";
 import type { CircuitDocument } from "@/lib/circuit";
 import { BUILT_IN_PLANS, planById, runPlan, type PlanVerdict, type StepResult } from "@/lib/diagnosis/plans";
+import type { Limits } from "@/lib/diagnosis/limits";
 import { formatVolts } from "@/lib/format";
 import { useCircuit, useCreateReading, useReadings } from "@/lib/hooks/circuits";
 
@@ -35,13 +36,13 @@ const STATUS: Record<StepResult["status"], { label: string; className: string }>
 };
 
 /** A guided test plan on one circuit: each check in order, recorded as readings, and the verdict they lead to. */
-export function PlanRunner({ circuitId, planId }: { circuitId: string; planId?: string }) {
+export function PlanRunner({ circuitId, planId, limits, limitsNote }: { circuitId: string; planId?: string; limits?: Limits; limitsNote?: string }) {
   const { data, error, isPending } = useCircuit(circuitId);
   const readings = useReadings(circuitId);
   const doc = data?.circuit.document;
   const [chosen, setChosen] = useState<string | undefined>(planId);
   const plan = planById(chosen ?? (doc?.components.some((c) => c.kind === "alternator") ? "charging" : "starting")) ?? BUILT_IN_PLANS[0]!;
-  const run = useMemo(() => (doc ? runPlan(plan, doc, readings.data ?? []) : undefined), [plan, doc, readings.data]);
+  const run = useMemo(() => (doc ? runPlan(plan, doc, readings.data ?? [], limits) : undefined), [plan, doc, readings.data, limits]);
   if (isPending) return <p className="text-graphite-500">Loading the circuit...</p>;
   if (error) return <Unavailable title="This circuit cannot be shown" message={error.message} testId="plan-missing" />;
   const { circuit, canEdit } = data;
@@ -118,8 +119,8 @@ export function PlanRunner({ circuitId, planId }: { circuitId: string; planId?: 
       </ol>
 
       {run ? <Verdict verdict={run.verdict} doc={circuit.document} circuitId={circuit.id} canEdit={canEdit} /> : null}
-      <p className="mt-6 text-xs text-graphite-500">
-        Limits are common practice unless a source is named beside them; the vehicle maker&rsquo;s service information comes first where it gives its own figures.
+      <p className="mt-6 text-xs text-graphite-500" data-testid="plan-limits-note">
+        {limitsNote ? `${limitsNote} ` : ""}Limits are common practice unless a source is named beside them; the vehicle maker&rsquo;s service information comes first where it gives its own figures.
       </p>
     </div>
   );

@@ -260,3 +260,16 @@ export const auditEvents = pgTable(
   },
   (t) => [index("audit_events_entity_idx").on(t.entityType, t.entityId, t.createdAt), index("audit_events_org_idx").on(t.organizationId, t.createdAt)],
 );
+
+/**
+ * An organisation's own diagnosis limits (drops, charging window, state of charge), where they differ from the
+ * common-practice defaults in lib/diagnosis/limits.ts. Only the figures the owner or lead changed are stored.
+ */
+export const organizationLimits = pgTable("organization_limits", {
+  organizationId: text("organization_id")
+    .primaryKey()
+    .references(() => organization.id, { onDelete: "cascade" }),
+  limits: jsonb("limits").$type<Record<string, number>>().notNull(),
+  updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});

@@ -3,6 +3,7 @@ import { circuitSchemaV1 } from "@/lib/circuit";
 import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
 import { startUploadInput } from "@/lib/validators/attachments";
 import { lessonVersionQuery, publishLessonInput } from "@/lib/validators/lessons";
+import { diagnosisLimitsInput } from "@/lib/validators/limits";
 import { changeRoleInput, createOrganizationInput, inviteInput, renameOrganizationInput } from "@/lib/validators/organizations";
 import { createShareLinkInput, emailReportInput } from "@/lib/validators/sharing";
 import { solveRequest } from "@/lib/validators/solve";
@@ -98,6 +99,8 @@ export const OPERATIONS: Op[] = [
   { method: "get", path: "/api/v1/organizations/{orgId}/invitations", summary: "Pending invitations", access: "owner, lead", responses: { "200": "Invitations", "403": "Role may not", ...common } },
   { method: "post", path: "/api/v1/organizations/{orgId}/invitations", summary: "Invite by address and role; the mail goes through the outbox", access: "owner, lead", body: inviteInput, responses: { "201": "The invitation", "403": "Role may not", ...common } },
   { method: "delete", path: "/api/v1/organizations/{orgId}/invitations/{invitationId}", summary: "Revoke a pending invitation", access: "owner, lead", responses: { "204": "Revoked", "403": "Role may not", ...common } },
+  { method: "get", path: "/api/v1/organizations/{orgId}/limits", summary: "The diagnosis limits in force: the organisation's own figures over the common-practice defaults", access: "members", responses: { "200": "Limits, own figures and defaults", ...common } },
+  { method: "put", path: "/api/v1/organizations/{orgId}/limits", summary: "Set the organisation's own diagnosis limits (a figure left out goes back to its default)", access: "owner, lead", body: diagnosisLimitsInput, responses: { "200": "The limits now in force", "403": "Role may not", ...common } },
   { method: "post", path: "/api/v1/invitations/{invitationId}/accept", summary: "Join the organisation the signed-in user was invited to", access: "the invited address, signed in", responses: { "200": "Joined", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },

@@ -46,8 +46,36 @@ export function stateOfChargePercent(openCircuitV: number, systemVoltage: number
   return 100;
 }
 
-/** The charging window for the system voltage (the 12 V figures, scaled). */
-export function chargingWindowV(systemVoltage: number): [number, number] {
+/** The charging window for the system voltage (the 12 V figures, scaled), from an organisation's limits if given. */
+export function chargingWindowV(systemVoltage: number, limits?: Limits): [number, number] {
   const k = systemVoltage / 12;
-  return [DIAGNOSIS_LIMITS.charging12V[0] * k, DIAGNOSIS_LIMITS.charging12V[1] * k];
+  const lo = limits?.chargingLowV ?? DIAGNOSIS_LIMITS.charging12V[0];
+  const hi = limits?.chargingHighV ?? DIAGNOSIS_LIMITS.charging12V[1];
+  return [lo * k, hi * k];
+}
+
+/**
+ * The limits an organisation may set for itself, with the common-practice default each starts from and the range
+ * it may be set in. The charging window is stated for a 12 V system and scaled for others.
+ */
+export const LIMIT_FIELDS = [
+  { key: "crankPositiveV", label: "Starting, positive side drop while cranking", unit: "V", default: DIAGNOSIS_LIMITS.crankPositiveV, min: 0.05, max: 2 },
+  { key: "crankGroundV", label: "Starting, ground side drop while cranking", unit: "V", default: DIAGNOSIS_LIMITS.crankGroundV, min: 0.05, max: 2 },
+  { key: "chargeSideV", label: "Charging, drop on each side at charging current", unit: "V", default: DIAGNOSIS_LIMITS.chargeSideV, min: 0.05, max: 2 },
+  { key: "connectionV", label: "Across one connection under load", unit: "V", default: DIAGNOSIS_LIMITS.connectionV, min: 0.01, max: 1 },
+  { key: "chargingLowV", label: "Charging voltage, low end (12 V system)", unit: "V", default: DIAGNOSIS_LIMITS.charging12V[0], min: 12, max: 15 },
+  { key: "chargingHighV", label: "Charging voltage, high end (12 V system)", unit: "V", default: DIAGNOSIS_LIMITS.charging12V[1], min: 13, max: 16 },
+  { key: "restSocPercent", label: "Battery at rest, lowest state of charge to go on testing", unit: "%", default: 75, min: 0, max: 100 },
+] as const;
+export type LimitKey = (typeof LIMIT_FIELDS)[number]["key"];
+export type Limits = Record<LimitKey, number>;
+
+/** The defaults with an organisation's own figures laid over them. */
+export function effectiveLimits(own?: Partial<Record<string, number>> | null): Limits {
+  const out = {} as Limits;
+  for (const f of LIMIT_FIELDS) {
+    const v = own?.[f.key];
+    out[f.key] = typeof v === "number" && Number.isFinite(v) ? v : f.default;
+  }
+  return out;
 }

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { stateIdsOf, type CircuitDocument, type Component } from "@/lib/circuit";
 import { checkReadings, type Reading } from "./compare";
-import { chargingWindowV, DIAGNOSIS_LIMITS, stateOfChargePercent } from "./limits";
+import { chargingWindowV, effectiveLimits, stateOfChargePercent, type Limits } from "./limits";
 import { locateFault, type Suspect } from "./locate";
 
 /**
@@ -239,7 +239,7 @@ export type PlanVerdict = {
 const fmt = (v: number) => `${v.toFixed(v < 1 ? 3 : 2)} V`;
 
 /** Judges each step from the circuit's readings and works out the verdict (see the module's comment for the order). */
-export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], limits: Record<string, number> = DIAGNOSIS_LIMITS as unknown as Record<string, number>): { steps: StepResult[]; verdict: PlanVerdict } {
+export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], limits: Limits = effectiveLimits()): { steps: StepResult[]; verdict: PlanVerdict } {
   const volts = (r: Reading) => (r.unit === "mV" ? r.value / 1000 : r.value);
   const latest = (pos: string, neg: string, stateId: string) => {
     for (let i = readings.length - 1; i >= 0; i--) {
@@ -270,15 +270,17 @@ export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], l
     let good: boolean;
     let judged: string;
     if (r.kind === "soc-at-least") {
+      // The organisation's own floor, when it set one, stands in for the plan's.
+      const floor = limits.restSocPercent ?? r.percent;
       const soc = stateOfChargePercent(v, doc.systemVoltage);
-      good = soc >= r.percent;
-      judged = `${fmt(v)} is about ${soc.toFixed(0)} % charged; ${r.percent} % or more is good`;
+      good = soc >= floor;
+      judged = `${fmt(v)} is about ${soc.toFixed(0)} % charged; ${floor} % or more is good`;
     } else if (r.kind === "charging-window") {
-      const [lo, hi] = chargingWindowV(doc.systemVoltage);
+      const [lo, hi] = chargingWindowV(doc.systemVoltage, limits);
       good = v >= lo && v <= hi;
       judged = `${fmt(v)} against the window ${lo.toFixed(1)} to ${hi.toFixed(1)} V${v < lo ? ": low, not charging enough" : v > hi ? ": high, overcharging" : ""}`;
     } else if (r.kind === "drop-at-most") {
-      const limit = limits[r.limit] ?? DIAGNOSIS_LIMITS[r.limit];
+      const limit = limits[r.limit];
       good = Math.abs(v) <= limit;
       judged = `a drop of ${fmt(Math.abs(v))} against ${limit} V at most`;
     } else if (r.kind === "at-least-fraction") {

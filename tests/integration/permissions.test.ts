@@ -6,6 +6,7 @@ import * as attachmentRoute from "@/app/api/v1/attachments/[attachmentId]/route"
 import * as invitations from "@/app/api/v1/organizations/[orgId]/invitations/route";
 import * as members from "@/app/api/v1/organizations/[orgId]/members/route";
 import * as member from "@/app/api/v1/organizations/[orgId]/members/[memberId]/route";
+import * as orgLimits from "@/app/api/v1/organizations/[orgId]/limits/route";
 import * as org from "@/app/api/v1/organizations/[orgId]/route";
 import * as orgs from "@/app/api/v1/organizations/route";
 import * as circuitPut from "@/app/api/v1/circuits/[circuitId]/route";
@@ -70,6 +71,9 @@ function rows(orgId: string, viewerMemberId: string): Row[] {
       expect: { owner: 201, lead: 201, technician: 403, student: 403, viewer: 403 },
     },
     { name: "PATCH member role", handler: member.PATCH as Handler, method: "PATCH", json: { role: "viewer" }, params: { memberId: viewerMemberId }, expect: { owner: 200, lead: 200, technician: 403, student: 403, viewer: 403 } },
+    { name: "GET limits", handler: orgLimits.GET as Handler, expect: all(200) },
+    // Set to the defaults' own values, so the demo judges readings as before for the browser tests.
+    { name: "PUT limits", handler: orgLimits.PUT as Handler, method: "PUT", json: { limits: { chargeSideV: 0.3 } }, expect: { owner: 200, lead: 200, technician: 403, student: 403, viewer: 403 } },
     { name: "DELETE member", handler: member.DELETE as Handler, method: "DELETE", params: { memberId: "mem_does_not_matter" }, expect: { technician: 403, student: 403, viewer: 403 } },
   ];
 }

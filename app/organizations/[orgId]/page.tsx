@@ -1,11 +1,14 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InviteForm, RevokeButton } from "@/components/organizations/invite-form";
+import { LimitsForm } from "@/components/organizations/limits-form";
 import { db } from "@/db";
 import { listInvitations } from "@/db/queries/invitations";
+import { getLimits } from "@/db/queries/limits";
 import { findMembership, listMembers } from "@/db/queries/organizations";
 import { assignableRoles, can, roleLabel, type OrgKind } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
+import { formatWhen } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Organisation" };
 
@@ -18,6 +21,7 @@ export default async function Page({ params }: { params: Promise<{ orgId: string
   const members = can(me.role, "members.read") ? await listMembers(db, orgId) : [];
   const mayInvite = can(me.role, "members.invite");
   const invitations = mayInvite ? await listInvitations(db, orgId) : [];
+  const limits = await getLimits(db, orgId);
   return (
     <div className="mx-auto max-w-4xl px-4 py-10 sm:px-6">
       <p className="text-sm font-semibold uppercase tracking-wider text-copper-600">{kind === "class" ? "Class" : "Shop"}</p>
@@ -62,6 +66,18 @@ export default async function Page({ params }: { params: Promise<{ orgId: string
           ) : null}
         </section>
       ) : null}
+      <section className="mt-8" aria-labelledby="limits-h">
+        <h2 id="limits-h" className="text-xl font-semibold">
+          Diagnosis limits
+        </h2>
+        <LimitsForm
+          orgId={orgId}
+          canEdit={can(me.role, "limits.set")}
+          limits={limits.limits}
+          own={limits.own}
+          updated={limits.updatedAt ? `Last changed ${formatWhen(limits.updatedAt)}${limits.updatedByName ? ` by ${limits.updatedByName}` : ""}.` : null}
+        />
+      </section>
     </div>
   );
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { benchTrainer, pickupCharging, tractorStarting } from "@/db/demo-work";
 import type { CircuitDocument } from "@/lib/circuit";
 import type { Reading } from "@/lib/diagnosis/compare";
+import { effectiveLimits } from "@/lib/diagnosis/limits";
 import { BUILT_IN_PLANS, planById, planSchema, runPlan, stateFor, terminalFor } from "@/lib/diagnosis/plans";
 import { solveCircuit } from "@/lib/solver";
 
@@ -98,5 +99,18 @@ describe("guided test plans", () => {
     expect(r.steps[2]!.status).toBe("cannot");
     expect(r.steps[2]!.missing).toContain("no starter");
     expect(r.verdict.kind).toBe("incomplete");
+  });
+
+  it("judges by an organisation's own limits where it set them", () => {
+    const taken = [reading("base", "B1.pos", "B1.neg", 12.6), reading("koeo", "A1.out", "B1.neg", 12.55), reading("charge", "A1.out", "B1.pos", 0.1), reading("charge", "B1.neg", "A1.case", 0.25)];
+    // 0.25 V is within the common-practice 0.3 V a side, but not within a shop's own 0.2 V.
+    expect(runPlan(charging, healthy, taken).steps[3]!.status).toBe("good");
+    const strict = runPlan(charging, healthy, taken, effectiveLimits({ chargeSideV: 0.2 }));
+    expect(strict.steps[3]!.status).toBe("bad");
+    expect(strict.steps[3]!.judged).toContain("0.2 V at most");
+    // A charging voltage of 13.3 V is low by 13.5 V but good by a shop's own 13.2 V floor.
+    const low = [...taken.slice(0, 3), reading("charge", "B1.neg", "A1.case", 0.1), reading("charge", "B1.pos", "B1.neg", 13.3)];
+    expect(runPlan(charging, healthy, low).verdict.kind).toBe("unit");
+    expect(runPlan(charging, healthy, low, effectiveLimits({ chargingLowV: 13.2 })).verdict.kind).toBe("none");
   });
 });

@@ -1,5 +1,8 @@
 import type { Metadata } from "next";
 import { PlanRunner } from "@/components/diagnosis/plan-runner";
+import { db } from "@/db";
+import { getLimits } from "@/db/queries/limits";
+import { circuitAccess } from "@/db/queries/work";
 import { requireUser } from "@/lib/auth/session";
 
 export const metadata: Metadata = { title: "Test plan" };
@@ -7,10 +10,18 @@ export const metadata: Metadata = { title: "Test plan" };
 export default async function Page({ params, searchParams }: { params: Promise<{ circuitId: string }>; searchParams: Promise<{ plan?: string }> }) {
   const { circuitId } = await params;
   const { plan } = await searchParams;
-  await requireUser(`/circuits/${circuitId}/plan`);
+  const user = await requireUser(`/circuits/${circuitId}/plan`);
+  // The organisation's own limits judge the readings; whether the circuit may be seen at all is the API's answer.
+  const access = await circuitAccess(db, circuitId, user.id);
+  const own = access?.role ? await getLimits(db, access.organizationId) : undefined;
   return (
     <div className="px-4 py-8 sm:px-6">
-      <PlanRunner circuitId={circuitId} planId={typeof plan === "string" ? plan : undefined} />
+      <PlanRunner
+        circuitId={circuitId}
+        planId={typeof plan === "string" ? plan : undefined}
+        limits={own?.limits}
+        limitsNote={own && Object.keys(own.own).length ? `${access!.organizationName}'s own limits are in force for ${Object.keys(own.own).length} of the figures.` : undefined}
+      />
     </div>
   );
 }
