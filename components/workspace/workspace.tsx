@@ -19,7 +19,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { ConflictDialog } from "@/components/circuits/conflict-dialog";
 import { IssueList } from "@/components/jobs/job-detail";
 import { COMPONENT_KINDS, stateIdsOf, type CircuitDocument, type Component, type ComponentKind, type Wire } from "@/lib/circuit";
-import { staleVersionOf, useCircuit, useSaveCircuit, type StaleVersion } from "@/lib/hooks/circuits";
+import { staleVersionOf, useCircuit, useReadings, useSaveCircuit, type StaleVersion } from "@/lib/hooks/circuits";
 import { solveCircuit, type SolveResult } from "@/lib/solver";
 import { fromSI } from "@/lib/units";
 import { assess, CANVAS_LIMITS, type Overlay } from "@/lib/workspace/analysis";
@@ -29,6 +29,7 @@ import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
 import { nodeTypes, samePartView, type PartNode } from "./nodes";
 import { PropertiesPanel, type UnitPrefs } from "./properties-panel";
+import { ReadingMarkers } from "./reading-markers";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
 import { BAND_COLOUR, edgeTypes, wireView, type WireEdgeType } from "./wire-edge";
@@ -203,6 +204,8 @@ function Editor(props: {
   const result = inWorker ? farResult : nearResult;
 
   const figures = useMemo(() => assess(doc, result), [doc, result]);
+  const readings = useReadings(props.circuitId ?? "", Boolean(props.circuitId));
+  const [showReadings, setShowReadings] = useState(true);
   const figureById = useMemo(() => new Map(figures.map((f) => [f.id, f])), [figures]);
 
   // ---- canvas nodes follow the document; xyflow's own measurements and selection are kept. A node whose part and
@@ -442,6 +445,12 @@ function Editor(props: {
             <option value="ampacity">ampacity use</option>
           </select>
         </label>
+        {readings.data?.length ? (
+          <label className="flex items-center gap-1 text-sm">
+            <input type="checkbox" checked={showReadings} onChange={(e) => setShowReadings(e.target.checked)} data-testid="ws-show-readings" />
+            <span className="text-graphite-700">Readings ({readings.data.filter((r) => r.stateId === solveState).length} in this state)</span>
+          </label>
+        ) : null}
         <label className="text-sm">
           <span className="mr-1 text-graphite-700">Lengths in</span>
           <select value={prefs.length} onChange={(e) => setPrefs({ ...prefs, length: e.target.value as UnitPrefs["length"] })} className="rounded border border-graphite-300 bg-white px-2 py-1" data-testid="ws-length-unit">
@@ -541,6 +550,7 @@ function Editor(props: {
           >
             <Background gap={20} size={1} color="#e4e7ea" />
             <Controls showInteractive={false} />
+            {showReadings && readings.data?.length ? <ReadingMarkers doc={doc} readings={readings.data} stateId={solveState} nodes={nodes} /> : null}
             <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={{ width: 150, height: 100 }} nodeStrokeWidth={2} />
           </ReactFlow>
         </div>

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { stateIdsOf, type CircuitDocument, type Component } from "@/lib/circuit";
+import { solveCircuit } from "@/lib/solver";
 import { checkReadings, type Reading } from "./compare";
 import { chargingWindowV, effectiveLimits, stateOfChargePercent, type Limits } from "./limits";
 import { locateFault, type Suspect } from "./locate";
@@ -332,12 +333,15 @@ function narrowDown(doc: CircuitDocument, readings: Reading[], failed: StepResul
   // Walk the path: a reading across each part that can go bad (not the zero-ohm links of the drawing).
   const links = new Set(doc.wires.filter((w) => w.resistanceOhm === 0).map((w) => w.id));
   const measured = new Set(inState.map((r) => [r.positive, r.negative].sort().join("|")));
+  // The red lead goes on the end the model puts higher, so the meter reads the drop as a positive number.
+  const solved = solveCircuit(doc, { state: failed.stateId });
   verdict.walk = path
     .filter((id) => !links.has(id))
     .map((id) => {
       const w = doc.wires.find((x) => x.id === id);
-      const [positive, negative] = w ? [w.from, w.to] : [`${id}.a`, `${id}.b`];
-      return { id, positive, negative };
+      const [from, to] = w ? [w.from, w.to] : [`${id}.a`, `${id}.b`];
+      const higherFirst = (solved.terminals[from] ?? 0) >= (solved.terminals[to] ?? 0);
+      return { id, positive: higherFirst ? from : to, negative: higherFirst ? to : from };
     })
     .filter((s) => !measured.has([s.positive, s.negative].sort().join("|")));
   verdict.reasons.push("The readings so far cover the whole side at once; measure across each part of it to find the one at fault.");

@@ -107,8 +107,8 @@ export function useRestore(id: string) {
   });
 }
 
-export function useReadings(id: string) {
-  return useQuery({ queryKey: circuitKeys.readings(id), queryFn: () => apiFetch<{ readings: Reading[] }>(`/api/v1/circuits/${id}/readings`).then((r) => r.readings) });
+export function useReadings(id: string, enabled = true) {
+  return useQuery({ queryKey: circuitKeys.readings(id), queryFn: () => apiFetch<{ readings: Reading[] }>(`/api/v1/circuits/${id}/readings`).then((r) => r.readings), enabled });
 }
 
 export function useCreateReading(id: string) {

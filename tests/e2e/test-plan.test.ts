@@ -63,6 +63,9 @@ describe("the charging-system test plan in the browser", () => {
     const jac = page.locator('.react-flow__node[data-id="JAC"]');
     await expect.poll(() => jac.getAttribute("class")).toContain("selected");
     expect(await page.getByTestId("ws-state").inputValue()).toBe("charge");
+    // The five readings taken while charging sit on the canvas between the parts they were taken across.
+    await expect.poll(() => page.getByTestId("canvas-reading").count()).toBe(5);
+    expect(await page.getByTestId("canvas-reading").allTextContents()).toEqual(expect.arrayContaining([expect.stringContaining("1.05 V · model")]));
     await screenshot(page, "test-plan-suspect-canvas");
     expect(watch.problems).toEqual([]);
     await page.close();
