@@ -10,7 +10,7 @@ import { IssueList } from "@/components/jobs/job-detail";
 import { SafetyNote } from "@/components/ui/safety-note";
 import { Unavailable } from "@/components/ui/unavailable";
 import type { CircuitDocument } from "@/lib/circuit";
-import { BUILT_IN_PLANS, planById, runPlan, type PlanVerdict, type StepResult } from "@/lib/diagnosis/plans";
+import { BUILT_IN_PLANS, runPlan, type Plan, type PlanVerdict, type StepResult } from "@/lib/diagnosis/plans";
 import type { Limits } from "@/lib/diagnosis/limits";
 import { formatVolts } from "@/lib/format";
 import { useCircuit, useCreateReading, useReadings } from "@/lib/hooks/circuits";
@@ -36,12 +36,15 @@ const STATUS: Record<StepResult["status"], { label: string; className: string }>
 };
 
 /** A guided test plan on one circuit: each check in order, recorded as readings, and the verdict they lead to. */
-export function PlanRunner({ circuitId, planId, limits, limitsNote }: { circuitId: string; planId?: string; limits?: Limits; limitsNote?: string }) {
+export function PlanRunner(props: { circuitId: string; planId?: string; limits?: Limits; limitsNote?: string; ownPlans?: Plan[] }) {
+  const { circuitId, planId, limits, limitsNote } = props;
+  const plans = useMemo(() => [...BUILT_IN_PLANS, ...(props.ownPlans ?? [])], [props.ownPlans]);
   const { data, error, isPending } = useCircuit(circuitId);
   const readings = useReadings(circuitId);
   const doc = data?.circuit.document;
   const [chosen, setChosen] = useState<string | undefined>(planId);
-  const plan = planById(chosen ?? (doc?.components.some((c) => c.kind === "alternator") ? "charging" : "starting")) ?? BUILT_IN_PLANS[0]!;
+  const wanted = chosen ?? (doc?.components.some((c) => c.kind === "alternator") ? "charging" : "starting");
+  const plan = plans.find((p) => p.id === wanted) ?? BUILT_IN_PLANS[0]!;
   const run = useMemo(() => (doc ? runPlan(plan, doc, readings.data ?? [], limits) : undefined), [plan, doc, readings.data, limits]);
   if (isPending) return <p className="text-graphite-500">Loading the circuit...</p>;
   if (error) return <Unavailable title="This circuit cannot be shown" message={error.message} testId="plan-missing" />;
@@ -61,8 +64,8 @@ export function PlanRunner({ circuitId, planId, limits, limitsNote }: { circuitI
         {plan.name} test plan
       </h1>
       <p className="mt-1 text-graphite-700">For: {plan.complaint.toLowerCase()}. Work down the checks in order; each reading is kept with the circuit.</p>
-      <div className="mt-3 flex gap-2" role="group" aria-label="Test plan">
-        {BUILT_IN_PLANS.map((p) => (
+      <div className="mt-3 flex flex-wrap gap-2" role="group" aria-label="Test plan">
+        {plans.map((p) => (
           <button
             key={p.id}
             type="button"

@@ -273,3 +273,20 @@ export const organizationLimits = pgTable("organization_limits", {
   updatedBy: text("updated_by").references(() => user.id, { onDelete: "set null" }),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
+
+/** An organisation's own guided test plans (the same data as the built-in ones, checked by planSchema). */
+export const organizationPlans = pgTable(
+  "organization_plans",
+  {
+    id: text("id").primaryKey(),
+    organizationId: text("organization_id")
+      .notNull()
+      .references(() => organization.id, { onDelete: "cascade" }),
+    /** The plan's own id (unique in its organisation and never a built-in plan's). */
+    planKey: text("plan_key").notNull(),
+    plan: jsonb("plan").notNull(),
+    createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [uniqueIndex("organization_plans_key_idx").on(t.organizationId, t.planKey)],
+);

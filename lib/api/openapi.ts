@@ -4,6 +4,7 @@ import { cableSizeRequest, saveSizingInput } from "@/lib/validators/cable-size";
 import { startUploadInput } from "@/lib/validators/attachments";
 import { lessonVersionQuery, publishLessonInput } from "@/lib/validators/lessons";
 import { diagnosisLimitsInput } from "@/lib/validators/limits";
+import { addPlanInput } from "@/lib/validators/plans";
 import { changeRoleInput, createOrganizationInput, inviteInput, renameOrganizationInput } from "@/lib/validators/organizations";
 import { createShareLinkInput, emailReportInput } from "@/lib/validators/sharing";
 import { solveRequest } from "@/lib/validators/solve";
@@ -101,6 +102,9 @@ export const OPERATIONS: Op[] = [
   { method: "delete", path: "/api/v1/organizations/{orgId}/invitations/{invitationId}", summary: "Revoke a pending invitation", access: "owner, lead", responses: { "204": "Revoked", "403": "Role may not", ...common } },
   { method: "get", path: "/api/v1/organizations/{orgId}/limits", summary: "The diagnosis limits in force: the organisation's own figures over the common-practice defaults", access: "members", responses: { "200": "Limits, own figures and defaults", ...common } },
   { method: "put", path: "/api/v1/organizations/{orgId}/limits", summary: "Set the organisation's own diagnosis limits (a figure left out goes back to its default)", access: "owner, lead", body: diagnosisLimitsInput, responses: { "200": "The limits now in force", "403": "Role may not", ...common } },
+  { method: "get", path: "/api/v1/organizations/{orgId}/plans", summary: "The built-in guided test plans and the organisation's own", access: "members", responses: { "200": "Plans", ...common } },
+  { method: "post", path: "/api/v1/organizations/{orgId}/plans", summary: "Add a test plan of the organisation's own (steps, lead positions, states, rules)", access: "owner, lead", body: addPlanInput, responses: { "201": "The plan", "403": "Role may not", "409": "A plan with that id exists", ...common } },
+  { method: "delete", path: "/api/v1/organizations/{orgId}/plans/{planId}", summary: "Remove one of the organisation's own test plans", access: "owner, lead", responses: { "204": "Removed", "403": "Role may not", ...common } },
   { method: "post", path: "/api/v1/invitations/{invitationId}/accept", summary: "Join the organisation the signed-in user was invited to", access: "the invited address, signed in", responses: { "200": "Joined", ...common } },
   { method: "post", path: "/api/v1/solve", summary: "Solve one operating state of a circuit", access: "anyone", body: solveRequest, responses: { "200": "The solved circuit", "413": "Body over 4 MB", "422": "Invalid document" } },
   { method: "post", path: "/api/v1/cable-size", summary: "Size a cable and fuse for a load", access: "anyone", body: cableSizeRequest, responses: { "200": "The sizing", "422": "A field needs fixing" } },

@@ -54,7 +54,11 @@ export const planStepSchema = z.strictObject({
 export type PlanStep = z.infer<typeof planStepSchema>;
 
 export const planSchema = z.strictObject({
-  id: z.string().min(1).max(40),
+  id: z
+    .string({ error: "id must be text" })
+    .min(2, "give the plan an id of at least 2 characters")
+    .max(40, "id is at most 40 characters")
+    .regex(/^[a-z0-9-]+$/, "id may hold only lower-case letters, digits and dashes (e.g. fleet-charging)"),
   name: z.string().min(1).max(120),
   /** The complaint it answers. */
   complaint: z.string().max(300),

@@ -7,6 +7,9 @@ import * as invitations from "@/app/api/v1/organizations/[orgId]/invitations/rou
 import * as members from "@/app/api/v1/organizations/[orgId]/members/route";
 import * as member from "@/app/api/v1/organizations/[orgId]/members/[memberId]/route";
 import * as orgLimits from "@/app/api/v1/organizations/[orgId]/limits/route";
+import * as orgPlan from "@/app/api/v1/organizations/[orgId]/plans/[planId]/route";
+import * as orgPlans from "@/app/api/v1/organizations/[orgId]/plans/route";
+import { BUILT_IN_PLANS } from "@/lib/diagnosis/plans";
 import * as org from "@/app/api/v1/organizations/[orgId]/route";
 import * as orgs from "@/app/api/v1/organizations/route";
 import * as circuitPut from "@/app/api/v1/circuits/[circuitId]/route";
@@ -48,6 +51,7 @@ beforeAll(async () => {
   for (const p of demoPeople) cookies[p.email] = await signInCookie(p.email, DEMO_PASSWORD);
 });
 afterAll(async () => {
+  await pool.query("delete from organization_plans where plan_key like 'perm-%'");
   await removeTestJobs(pool);
   await pool.end();
 });
@@ -74,6 +78,17 @@ function rows(orgId: string, viewerMemberId: string): Row[] {
     { name: "GET limits", handler: orgLimits.GET as Handler, expect: all(200) },
     // Set to the defaults' own values, so the demo judges readings as before for the browser tests.
     { name: "PUT limits", handler: orgLimits.PUT as Handler, method: "PUT", json: { limits: { chargeSideV: 0.3 } }, expect: { owner: 200, lead: 200, technician: 403, student: 403, viewer: 403 } },
+    { name: "GET plans", handler: orgPlans.GET as Handler, expect: all(200) },
+    {
+      name: "POST plan",
+      handler: orgPlans.POST as Handler,
+      // A fresh id on every call, so each role that may add one adds its own.
+      get json() {
+        return { plan: { ...BUILT_IN_PLANS[1], id: `perm-${Math.random().toString(36).slice(2, 10)}`, name: "Permission plan" } };
+      },
+      expect: { owner: 201, lead: 201, technician: 403, student: 403, viewer: 403 },
+    },
+    { name: "DELETE plan", handler: orgPlan.DELETE as Handler, method: "DELETE", params: { planId: "pln_not_there" }, expect: { owner: 404, lead: 404, technician: 403, student: 403, viewer: 403 } },
     { name: "DELETE member", handler: member.DELETE as Handler, method: "DELETE", params: { memberId: "mem_does_not_matter" }, expect: { technician: 403, student: 403, viewer: 403 } },
   ];
 }

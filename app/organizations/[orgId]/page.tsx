@@ -2,9 +2,11 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { InviteForm, RevokeButton } from "@/components/organizations/invite-form";
 import { LimitsForm } from "@/components/organizations/limits-form";
+import { OwnPlans } from "@/components/organizations/own-plans";
 import { db } from "@/db";
 import { listInvitations } from "@/db/queries/invitations";
 import { getLimits } from "@/db/queries/limits";
+import { listOwnPlans } from "@/db/queries/plans";
 import { findMembership, listMembers } from "@/db/queries/organizations";
 import { assignableRoles, can, roleLabel, type OrgKind } from "@/lib/auth/permissions";
 import { requireUser } from "@/lib/auth/session";
@@ -22,6 +24,7 @@ export default async function Page({ params }: { params: Promise<{ orgId: string
   const mayInvite = can(me.role, "members.invite");
   const invitations = mayInvite ? await listInvitations(db, orgId) : [];
   const limits = await getLimits(db, orgId);
+  const ownPlans = await listOwnPlans(db, orgId);
   return (
     <div className="mx-auto max-w-4xl px-4 py-10 sm:px-6">
       <p className="text-sm font-semibold uppercase tracking-wider text-copper-600">{kind === "class" ? "Class" : "Shop"}</p>
@@ -77,6 +80,12 @@ export default async function Page({ params }: { params: Promise<{ orgId: string
           own={limits.own}
           updated={limits.updatedAt ? `Last changed ${formatWhen(limits.updatedAt)}${limits.updatedByName ? ` by ${limits.updatedByName}` : ""}.` : null}
         />
+      </section>
+      <section className="mt-8" aria-labelledby="plans-h">
+        <h2 id="plans-h" className="text-xl font-semibold">
+          Test plans of your own
+        </h2>
+        <OwnPlans orgId={orgId} canEdit={can(me.role, "limits.set")} plans={ownPlans} />
       </section>
     </div>
   );
