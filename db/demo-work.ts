@@ -3,6 +3,7 @@
  * Every name and number is invented for the story (a corroded alternator bracket on Unit 14, a weak battery in
  * Unit 31's bank, an upfit on a customer's van, and a class's bench trainer).
  */
+import { BUILT_IN_PLANS } from "@/lib/diagnosis/plans";
 import type { CircuitDocument } from "@/lib/circuit";
 import type { SizingInputs } from "@/lib/conductors/sizing-form";
 
@@ -406,4 +407,21 @@ export const demoLesson = {
     { userId: "usr_demo_student1", openCount: 4, lastVersion: 2, daysAgo: 3, copyJobId: "job_demo_ines" },
     { userId: "usr_demo_student2", openCount: 1, lastVersion: 2, daysAgo: 2, copyJobId: null },
   ],
+};
+
+/**
+ * The shop's own test plan: the two drop checks of the charging plan alone, for a fleet's quick check on units
+ * whose batteries were just tested. Plans are data, so this is the same shape as the built-in ones.
+ */
+export const demoShopPlan = {
+  id: "pln_demo_fleet_drops",
+  organizationId: "org_demo_shop",
+  createdBy: "usr_demo_lead",
+  plan: {
+    id: "fleet-drops",
+    name: "Fleet quick check: charging drops",
+    complaint: "Battery light on a fleet unit whose battery was tested this week",
+    allGood: "Both sides of the charging circuit read good. With the battery already tested, look at the alternator, its drive belt and the lamp circuit, following the vehicle maker's service information.",
+    steps: BUILT_IN_PLANS[0]!.steps.filter((s) => s.id === "positive" || s.id === "ground"),
+  },
 };

@@ -3,9 +3,10 @@ import { hashPassword } from "better-auth/crypto";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop, demoVehicles } from "./demo";
 import { sizeCable, summarizeSizing } from "@/lib/conductors";
 import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
-import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoPlanJobs, demoSizings, type DemoJob } from "./demo-work";
+import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoPlanJobs, demoShopPlan, demoSizings, type DemoJob } from "./demo-work";
+import { planSchema } from "@/lib/diagnosis/plans";
 import { hashShareToken } from "@/lib/report/tokens";
-import { account, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
+import { account, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, organizationPlans, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -127,6 +128,14 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
     load: async (tx) => {
       if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
       await insertDemoJobs(tx, demoPlanJobs);
+    },
+  },
+  {
+    name: "demo-diagnosis-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      const p = demoShopPlan;
+      await tx.insert(organizationPlans).values({ id: p.id, organizationId: p.organizationId, planKey: p.plan.id, plan: planSchema.parse(p.plan), createdBy: p.createdBy });
     },
   },
   {

@@ -41,7 +41,7 @@ export const areas: Area[] = [
       "Each reading compared with what the circuit predicts, with the likely joint named.",
       "A verdict and a repair order, only once feeds, grounds and cables are proven.",
     ],
-    ready: false,
+    ready: true,
   },
   {
     href: "/size",
@@ -52,7 +52,7 @@ export const areas: Area[] = [
       "Every candidate size with its drop, heat and derated ampacity.",
       "A check that the alternator keeps up with the new load at idle.",
     ],
-    ready: false,
+    ready: true,
   },
   {
     href: "/lessons",

@@ -18,7 +18,7 @@ const params = { orgId: demoShop.id };
 /** A shop's own plan: the built-in charging plan cut to its two drop checks, with a stricter limit's words. */
 const ownPlan: Plan = {
   ...BUILT_IN_PLANS[0]!,
-  id: "fleet-drops",
+  id: "fleet-drops-test",
   name: "Fleet: charging drops only",
   steps: BUILT_IN_PLANS[0]!.steps.filter((s) => s.id === "positive" || s.id === "ground"),
 };
@@ -31,7 +31,7 @@ beforeAll(async () => {
   outsider = await signInCookie("lena@fernmoor.example", DEMO_PASSWORD);
 });
 afterAll(async () => {
-  await pool.query("delete from organization_plans where plan_key = 'fleet-drops'");
+  await pool.query("delete from organization_plans where plan_key = 'fleet-drops-test'");
   await pool.end();
 });
 
@@ -43,7 +43,7 @@ describe("an organisation's own test plans", () => {
     id = (await res.json()).plan.id;
     const list = await (await callRoute(h(plansRoute.GET), { params, cookie: tech })).json();
     expect(list.builtIn.map((p: Plan) => p.id)).toEqual(["charging", "starting"]);
-    expect(list.own).toEqual([expect.objectContaining({ id, plan: ownPlan })]);
+    expect(list.own).toEqual(expect.arrayContaining([expect.objectContaining({ id, plan: ownPlan }), expect.objectContaining({ id: "pln_demo_fleet_drops" })]));
     const other = await (await callRoute(h(plansRoute.GET), { params: { orgId: demoClass.id }, cookie: outsider })).json();
     expect(other.own).toEqual([]);
   });
