@@ -28,7 +28,7 @@ import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
 import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
 import { nodeTypes, samePartView, type PartNode } from "./nodes";
-import { PropertiesPanel, type UnitPrefs } from "./properties-panel";
+import { DEFAULT_PREFS, PropertiesPanel, sizeShown, type UnitPrefs } from "./properties-panel";
 import { ReadingMarkers } from "./reading-markers";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
@@ -45,12 +45,12 @@ const edgeCache = new WeakMap<Wire, { shown: string; edge: WireEdgeType }>();
 type SaveState = { kind: "saved"; version: number } | { kind: "dirty" } | { kind: "saving" } | { kind: "error"; message: string };
 
 function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
-  const [prefs, setPrefs] = useState<UnitPrefs>({ length: "m", temperature: "degC" });
+  const [prefs, setPrefs] = useState<UnitPrefs>(DEFAULT_PREFS);
   useEffect(() => {
     try {
       const saved = JSON.parse(localStorage.getItem("ampwright.units") ?? "null") as UnitPrefs | null;
       // eslint-disable-next-line react-hooks/set-state-in-effect -- read once from this browser after hydration
-      if (saved?.length) setPrefs(saved);
+      if (saved?.length) setPrefs({ ...DEFAULT_PREFS, ...saved });
     } catch {
       // a malformed preference is ignored
     }
@@ -255,7 +255,7 @@ function Editor(props: {
     (w: Wire) => {
       if (w.resistanceOhm !== undefined) return w.resistanceOhm === 0 ? "link" : `${+(w.resistanceOhm * 1000).toPrecision(3)} mΩ`;
       const len = prefs.length === "ft" ? `${fromSI(w.lengthM ?? 0, "length", "ft").toFixed(1)} ft` : `${(w.lengthM ?? 0).toFixed(2)} m`;
-      return `${w.size} · ${len}`;
+      return `${sizeShown(w.size ?? "", prefs)} · ${len}`;
     },
     [prefs],
   );
@@ -456,6 +456,20 @@ function Editor(props: {
           <select value={prefs.length} onChange={(e) => setPrefs({ ...prefs, length: e.target.value as UnitPrefs["length"] })} className="rounded border border-graphite-300 bg-white px-2 py-1" data-testid="ws-length-unit">
             <option value="m">metres</option>
             <option value="ft">feet</option>
+          </select>
+        </label>
+        <label className="text-sm">
+          <span className="mr-1 text-graphite-700">Sizes in</span>
+          <select value={prefs.size} onChange={(e) => setPrefs({ ...prefs, size: e.target.value as UnitPrefs["size"] })} className="rounded border border-graphite-300 bg-white px-2 py-1" data-testid="ws-size-unit">
+            <option value="awg">AWG</option>
+            <option value="mm2">mm²</option>
+          </select>
+        </label>
+        <label className="text-sm">
+          <span className="mr-1 text-graphite-700">Temperatures in</span>
+          <select value={prefs.temperature} onChange={(e) => setPrefs({ ...prefs, temperature: e.target.value as UnitPrefs["temperature"] })} className="rounded border border-graphite-300 bg-white px-2 py-1" data-testid="ws-temp-unit">
+            <option value="degC">°C</option>
+            <option value="degF">°F</option>
           </select>
         </label>
         <div className="flex gap-1">

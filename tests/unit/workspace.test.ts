@@ -4,6 +4,7 @@ import { loadCircuit } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
 import { assess, bandOf } from "@/lib/workspace/analysis";
 import { addComponent, addWire, copyItems, freeSpot, pasteItems, removeItems } from "@/lib/workspace/edit";
+import { DEFAULT_PREFS, ratingShown, sizeShown } from "@/components/workspace/properties-panel";
 
 describe("workspace edits", () => {
   it("adds parts with the next free id, joins them, and keeps the document valid", () => {
@@ -79,5 +80,19 @@ describe("starting points", () => {
         }
       }
     }
+  });
+});
+
+describe("display preferences", () => {
+  const mm2 = { length: "m", temperature: "degF", size: "mm2" } as const;
+  it("shows an AWG size by its area when mm2 are preferred, and a rating in degrees F", () => {
+    // ASTM B258 diameter law: 4 AWG = 0.005 in x 92^(32/39) = 0.2043 in; pi/4 x (5.189 mm)^2 = 21.15 mm2.
+    expect(sizeShown("4 AWG", mm2)).toBe("≈21.2 mm²");
+    expect(sizeShown("4 AWG", mm2, true)).toBe("21.2 mm² (4 AWG)");
+    expect(sizeShown("4 AWG", DEFAULT_PREFS)).toBe("4 AWG");
+    expect(sizeShown("16 mm2", DEFAULT_PREFS)).toBe("16 mm²");
+    // 105 degrees C x 9/5 + 32 = 221 degrees F (definition of the scales).
+    expect(ratingShown(105, mm2)).toBe("221 °F (105 °C)");
+    expect(ratingShown(105, DEFAULT_PREFS)).toBe("105 °C");
   });
 });
