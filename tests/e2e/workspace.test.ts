@@ -145,6 +145,18 @@ describe("the circuit workspace", () => {
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await screenshot(page, "workspace-390");
+    // At 360 px a chosen part's settings rise as a bottom sheet over the canvas, and close again.
+    await page.setViewportSize({ width: 360, height: 740 });
+    await page.locator('.react-flow__node[data-id="M1"]').click();
+    const sheet = page.getByTestId("ws-sheet");
+    await sheet.waitFor();
+    expect(await sheet.evaluate((el) => getComputedStyle(el).position)).toBe("fixed");
+    const box = (await sheet.boundingBox())!;
+    expect(box.y + box.height).toBeCloseTo(740, 0);
+    expect(box.width).toBeCloseTo(360, 0);
+    await screenshot(page, "workspace-360-sheet");
+    await page.getByTestId("ws-sheet-close").click();
+    await expect.poll(() => sheet.count()).toBe(0);
     await page.close();
   });
 });
