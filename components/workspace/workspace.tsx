@@ -580,7 +580,7 @@ function Editor(props: {
           ) : null}
           {onlyNode || onlyWire ? (
             // On a phone the chosen item's settings rise as a sheet over the canvas, closed by its button.
-            <div className="max-lg:fixed max-lg:inset-x-0 max-lg:bottom-0 max-lg:z-40 max-lg:max-h-[65dvh] max-lg:overflow-y-auto max-lg:rounded-t-xl max-lg:border-t max-lg:border-graphite-300 max-lg:bg-paper-raised max-lg:p-4 max-lg:shadow-2xl" role="region" aria-label="Settings of the chosen item" data-testid="ws-sheet">
+            <div className="max-lg:fixed max-lg:inset-x-0 max-lg:bottom-0 max-lg:z-40 max-lg:max-h-[65dvh] max-lg:overflow-y-auto max-lg:rounded-t-xl max-lg:border-t max-lg:border-graphite-300 max-lg:bg-paper-raised max-lg:mb-0! max-lg:p-4 max-lg:shadow-2xl" role="region" aria-label="Settings of the chosen item" data-testid="ws-sheet">
               <div className="mb-2 flex justify-end lg:hidden">
                 <button type="button" onClick={() => select([])} className="rounded border border-graphite-300 px-2 py-1 text-sm" data-testid="ws-sheet-close">
                   Close
