@@ -2,7 +2,7 @@ import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import type { Db } from "@/db";
 import { attachments, circuits, jobs, member, organization, readings, user } from "@/db/schema";
-import { audit, newId, type WorkAccess } from "./work";
+import { accessColumns, audit, memberOf, newId, type WorkAccess } from "./work";
 
 const uploader = user;
 const columns = {
@@ -46,19 +46,11 @@ export async function attachmentKeys(db: Db, id: string) {
 
 export async function attachmentAccess(db: Db, id: string, userId: string): Promise<(WorkAccess & { attachmentId: string }) | undefined> {
   const rows = await db
-    .select({
-      organizationId: jobs.organizationId,
-      ownerId: jobs.ownerId,
-      jobId: jobs.id,
-      role: member.role,
-      organizationName: organization.name,
-      organizationKind: organization.kind,
-      attachmentId: attachments.id,
-    })
+    .select({ ...accessColumns(), attachmentId: attachments.id })
     .from(attachments)
     .innerJoin(jobs, eq(jobs.id, attachments.jobId))
     .innerJoin(organization, eq(organization.id, jobs.organizationId))
-    .leftJoin(member, and(eq(member.organizationId, jobs.organizationId), eq(member.userId, userId)))
+    .leftJoin(member, memberOf(userId))
     .where(eq(attachments.id, id))
     .limit(1);
   return rows[0];

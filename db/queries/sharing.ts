@@ -3,7 +3,7 @@ import { and, desc, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db";
 import { circuits, jobs, member, organization, shareLinks, user } from "@/db/schema";
 import { hashShareToken, newShareToken } from "@/lib/report/tokens";
-import { audit, newId, type WorkAccess } from "./work";
+import { accessColumns, audit, memberOf, newId, type WorkAccess } from "./work";
 
 const maker = user;
 const linkColumns = {
@@ -69,19 +69,11 @@ export async function revokeShareLink(db: Db, p: { id: string; jobId: string; or
 /** Where a share link sits and the caller's role there (for revoking through the work routes). */
 export async function shareLinkAccess(db: Db, id: string, userId: string): Promise<(WorkAccess & { shareLinkId: string }) | undefined> {
   const rows = await db
-    .select({
-      organizationId: jobs.organizationId,
-      ownerId: jobs.ownerId,
-      jobId: jobs.id,
-      role: member.role,
-      organizationName: organization.name,
-      organizationKind: organization.kind,
-      shareLinkId: shareLinks.id,
-    })
+    .select({ ...accessColumns(), shareLinkId: shareLinks.id })
     .from(shareLinks)
     .innerJoin(jobs, eq(jobs.id, shareLinks.jobId))
     .innerJoin(organization, eq(organization.id, jobs.organizationId))
-    .leftJoin(member, and(eq(member.organizationId, jobs.organizationId), eq(member.userId, userId)))
+    .leftJoin(member, memberOf(userId))
     .where(eq(shareLinks.id, id))
     .limit(1);
   return rows[0];

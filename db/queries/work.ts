@@ -27,7 +27,7 @@ export async function audit(
  * Where a piece of work sits and what the caller is in that organisation, in one statement: its organisation and
  * owner (for the own-work rule) and the caller's membership (role null when they are not a member).
  */
-const accessColumns = () => ({
+export const accessColumns = () => ({
     organizationId: jobs.organizationId,
     ownerId: jobs.ownerId,
     jobId: jobs.id,
@@ -35,7 +35,7 @@ const accessColumns = () => ({
     organizationName: organization.name,
     organizationKind: organization.kind,
 });
-const memberOf = (userId: string) => and(eq(member.organizationId, jobs.organizationId), eq(member.userId, userId));
+export const memberOf = (userId: string) => and(eq(member.organizationId, jobs.organizationId), eq(member.userId, userId));
 
 export type WorkAccess = { organizationId: string; ownerId: string | null; jobId: string; role: string | null; organizationName: string; organizationKind: string };
 

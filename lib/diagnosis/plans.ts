@@ -70,6 +70,19 @@ export type Plan = z.infer<typeof planSchema>;
 
 const p = (kind: Probe["kind"], terminal: Probe["terminal"]): Probe => ({ kind, terminal });
 
+/** The first check of every plan: the rested battery's state of charge (BCI open-circuit table, 75 % or more). */
+const restStep = (setup: string, why: string): PlanStep => ({
+  id: "rest",
+  title: "Battery at rest",
+  state: "rest",
+  setup,
+  red: p("battery", "pos"),
+  black: p("battery", "neg"),
+  rule: { kind: "soc-at-least", percent: 75 },
+  good: "About 12.45 V or more on a 12 V battery: 75 % charged or better (Battery Council International open-circuit table).",
+  fails: { verdict: "battery", why },
+});
+
 /** The two plans every organisation starts with. Figures are common practice unless a source is named. */
 export const BUILT_IN_PLANS: Plan[] = [
   {
@@ -78,17 +91,10 @@ export const BUILT_IN_PLANS: Plan[] = [
     complaint: "Battery light on, battery goes flat, dim lights at idle",
     allGood: "Every check reads good: the battery, its feed and both sides of the charging circuit are sound. A battery light with these readings points at the lamp or sense circuit; follow the vehicle maker's service information.",
     steps: [
-      {
-        id: "rest",
-        title: "Battery at rest",
-        state: "rest",
-        setup: "Key off, engine off, loads off; the vehicle has stood for an hour or more (or the surface charge was removed).",
-        red: p("battery", "pos"),
-        black: p("battery", "neg"),
-        rule: { kind: "soc-at-least", percent: 75 },
-        good: "About 12.45 V or more on a 12 V battery: 75 % charged or better (Battery Council International open-circuit table).",
-        fails: { verdict: "battery", why: "A battery below 75 % at rest must be charged and tested before the charging system is judged: a flat battery makes a good alternator look bad (common practice)." },
-      },
+      restStep(
+        "Key off, engine off, loads off; the vehicle has stood for an hour or more (or the surface charge was removed).",
+        "A battery below 75 % at rest must be charged and tested before the charging system is judged: a flat battery makes a good alternator look bad (common practice).",
+      ),
       {
         id: "feed",
         title: "B+ feed reaches the alternator",
@@ -141,17 +147,10 @@ export const BUILT_IN_PLANS: Plan[] = [
     complaint: "Slow crank, click but no crank, no-start",
     allGood: "Every check reads good: the battery holds up and both sides of the starting circuit are sound. A slow crank with these readings points at the starter motor or the engine itself; follow the vehicle maker's service information.",
     steps: [
-      {
-        id: "rest",
-        title: "Battery at rest",
-        state: "rest",
-        setup: "Key off, loads off; the vehicle has stood for an hour or more.",
-        red: p("battery", "pos"),
-        black: p("battery", "neg"),
-        rule: { kind: "soc-at-least", percent: 75 },
-        good: "About 12.45 V or more on a 12 V battery: 75 % charged or better (Battery Council International open-circuit table).",
-        fails: { verdict: "battery", why: "A battery below 75 % at rest cannot be judged under the cranking load: charge it and load-test it first (common practice)." },
-      },
+      restStep(
+        "Key off, loads off; the vehicle has stood for an hour or more.",
+        "A battery below 75 % at rest cannot be judged under the cranking load: charge it and load-test it first (common practice).",
+      ),
       {
         id: "crank-volts",
         title: "Battery voltage while cranking",
