@@ -2,7 +2,7 @@
 
 import { useEffect, useMemo } from "react";
 import { useForm } from "react-hook-form";
-import { componentSchema, wireSchema, type Component, type ComponentKind, type Wire } from "@/lib/circuit";
+import { CIRCUIT_DEFAULTS, componentSchema, wireSchema, type Component, type ComponentKind, type Wire } from "@/lib/circuit";
 import { MATERIALS, MATERIAL_IDS } from "@/lib/conductors/materials";
 import { findSize, SIZE_LABELS } from "@/lib/conductors/sizes";
 import { fromSI, parseQuantity, type Quantity } from "@/lib/units";
@@ -94,9 +94,13 @@ function wireFields(w: Wire, prefs: UnitPrefs): Field[] {
   ];
 }
 
+/** Fields a cable may leave out, shown as the document's defaults (a cable drawn on the canvas has none of them). */
+const WIRE_DEFAULTS: Record<string, string | number> = { insulationRatingC: CIRCUIT_DEFAULTS.insulationRatingC, bundleSize: CIRCUIT_DEFAULTS.bundleSize, material: CIRCUIT_DEFAULTS.material, zone: "cabin" };
+
 function show(value: unknown, f: Field): string | boolean {
   // Unset switches read as the document's defaults: enabled and closed are on, the reference mark is off.
   if (f.type === "bool") return value === undefined ? !(f.key === "reference" || f.key === "fixed") : Boolean(value);
+  if ((value === undefined || value === null) && f.key in WIRE_DEFAULTS) return String(WIRE_DEFAULTS[f.key]);
   if (value === undefined || value === null) return "";
   if (f.type === "quantity") return `${+fromSI(Number(value), f.quantity, f.unit).toPrecision(6)} ${f.unit === "ohm" ? "Ω" : f.unit === "mOhm" ? "mΩ" : f.unit}`;
   return String(value);
