@@ -9,7 +9,24 @@ const FIRST_ROWS = 60;
 const num = (digits: number, unit: string) => (v: number | undefined) => (v === undefined ? "-" : `${v.toFixed(digits)} ${unit}`);
 
 const columns = [
-  col.accessor("id", { header: "Id", cell: (c) => <span className="font-mono">{c.getValue()}</span> }),
+  col.accessor("id", {
+    header: "Id",
+    // A button, so the keyboard can choose a row as the mouse does (Tab to it, Enter).
+    cell: (c) => (
+      <button
+        type="button"
+        className="font-mono underline-offset-2 hover:underline"
+        aria-label={`Choose ${c.getValue()} on the canvas`}
+        onClick={(e) => {
+          e.stopPropagation();
+          (c.table.options.meta as { onPick: (id: string) => void }).onPick(c.getValue());
+        }}
+        data-testid="ws-result-pick"
+      >
+        {c.getValue()}
+      </button>
+    ),
+  }),
   col.accessor("label", { header: "What", cell: (c) => `${c.getValue()}${c.row.original.kind === "joint" ? " (connection)" : ""}` }),
   col.accessor((r) => Math.abs(r.current), { id: "current", header: "Current", cell: (c) => num(1, "A")(c.getValue()) }),
   col.accessor((r) => r.resistance * 1000, { id: "resistance", header: "Resistance", cell: (c) => num(3, "mΩ")(c.getValue()) }),
@@ -31,7 +48,7 @@ export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (i
   // A large circuit lists its worst rows first (by the chosen sort); the rest on request, so each edit stays quick.
   const [all, setAll] = useState(false);
   // eslint-disable-next-line react-hooks/incompatible-library -- rebuilt each render; nothing below is memoised
-  const table = useReactTable({ data: rows, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const table = useReactTable({ data: rows, columns, meta: { onPick }, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
     <div className="mt-2 max-h-80 overflow-auto rounded border border-graphite-100 bg-white">
       <table className="w-full min-w-[760px] text-sm" data-testid="ws-results">

@@ -147,4 +147,39 @@ describe("building a circuit on the canvas", () => {
     await other.close();
     await page.close();
   });
+
+  it("works from the keyboard alone: add a part, undo it, choose a cable from the table, change it, with the focus visible", async () => {
+    const page = await priya.newPage();
+    await page.setViewportSize({ width: 1440, height: 1000 });
+    const watch = watchPage(page);
+    await page.goto(`${baseUrl}/circuits/cir_demo_van_feeds/workspace`, { waitUntil: "networkidle" });
+    await page.getByTestId("part-B1").waitFor();
+    const fuses = () => page.locator('.react-flow__node[data-id^="F"]').count();
+    const before = await fuses();
+
+    // Tab from the "Add a load" button to the palette's fuse (the palette lists the kinds in order).
+    await page.getByTestId("palette-battery").focus();
+    for (let i = 0; i < 4; i++) await page.keyboard.press("Tab");
+    expect(await page.evaluate(() => document.activeElement?.getAttribute("data-testid"))).toBe("palette-fuse");
+    const ring = await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle);
+    expect(ring).toBe("solid");
+    await page.keyboard.press("Enter");
+    await expect.poll(fuses).toBe(before + 1);
+    await page.keyboard.press("Control+z");
+    await expect.poll(fuses).toBe(before);
+
+    // Choose the winch feed from the results table with the keyboard, and type a new length.
+    await page.getByRole("button", { name: "Choose WW2 on the canvas" }).focus();
+    await page.keyboard.press("Enter");
+    await page.getByTestId("properties").getByText("WW2: cable").waitFor();
+    await page.getByTestId("prop-lengthM").focus();
+    await page.keyboard.press("Control+a");
+    await page.keyboard.type("20 ft");
+    await page.keyboard.press("Enter");
+    // 20 ft = 6.096 m (definition of the foot, 0.3048 m).
+    await expect.poll(() => page.getByTestId("prop-lengthM").inputValue()).toBe("6.096 m");
+    await page.keyboard.press("Escape");
+    expect(watch.problems).toEqual([]);
+    await page.close();
+  });
 });
