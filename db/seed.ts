@@ -5,8 +5,9 @@ import { sizeCable, summarizeSizing } from "@/lib/conductors";
 import { parseSizingInputs, queryFromInputs, SIZING_DEFAULTS } from "@/lib/conductors/sizing-form";
 import { DEMO_SHARE_TOKEN, demoJobs, demoLesson, demoOutcomes, demoPlanJobs, demoShopPlan, demoSizings, type DemoJob } from "./demo-work";
 import { planSchema } from "@/lib/diagnosis/plans";
+import { meterPhoto, storeDemoPhoto } from "./demo-photos";
 import { hashShareToken } from "@/lib/report/tokens";
-import { account, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, organizationPlans, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
+import { account, attachments, auditEvents, circuitRevisions, circuits, jobs, lessonActivity, lessons, lessonVersions, member, organization, organizationPlans, readings, seedRuns, shareLinks, sizings, user, vehicles } from "./schema";
 import { scriptDb } from "./scripts-db";
 
 type ScriptDb = ReturnType<typeof scriptDb>["db"];
@@ -51,7 +52,8 @@ async function insertDemoJobs(tx: Tx, list: DemoJob[]) {
 }
 
 /** Each demo part loads once, in its own transaction, recorded in seed_runs. */
-const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
+/** A part whose load answers false did not load (a service it needs is down) and is tried again next time. */
+const parts: { name: string; load: (tx: Tx) => Promise<void | false> }[] = [
   {
     name: "demo-organisations-v1",
     load: async (tx) => {
@@ -139,6 +141,33 @@ const parts: { name: string; load: (tx: Tx) => Promise<void> }[] = [
     },
   },
   {
+    // The meter photo Priya took of the ground-side reading on Unit 14, in the object store (needs it running).
+    name: "demo-photos-v1",
+    load: async (tx) => {
+      if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
+      const objectKey = "org_demo_shop/job_demo_unit14/att_demo_unit14_meter";
+      const stored = await storeDemoPhoto(objectKey, await meterPhoto("1.69"));
+      if (!stored) {
+        console.warn("demo photos: the object store is not reachable; they will be added on the next start");
+        return false;
+      }
+      await tx.insert(attachments).values({
+        id: "att_demo_unit14_meter",
+        organizationId: "org_demo_shop",
+        jobId: "job_demo_unit14",
+        readingId: "rdg_demo_unit14_charging_4",
+        status: "ready",
+        objectKey,
+        thumbnailKey: stored.thumbnailKey,
+        fileName: "ground-side-1.69V.jpg",
+        contentType: "image/jpeg",
+        sizeBytes: stored.sizeBytes,
+        sha256: stored.sha256,
+        uploadedBy: "usr_demo_tech",
+      });
+    },
+  },
+  {
     name: "demo-lessons-v1",
     load: async (tx) => {
       if (process.env.NODE_ENV === "production" && process.env.DEMO !== "1") return;
@@ -177,7 +206,7 @@ export async function seedDemo(url?: string): Promise<string[]> {
         await tx.execute(sql`select pg_advisory_xact_lock(7317001)`);
         const done = await tx.select().from(seedRuns).where(sql`${seedRuns.name} = ${part.name}`);
         if (done.length > 0) return;
-        await part.load(tx);
+        if ((await part.load(tx)) === false) return;
         await tx.insert(seedRuns).values({ name: part.name });
         loaded.push(part.name);
       });

@@ -148,7 +148,7 @@ function Verdict({ verdict, doc, circuitId, canEdit }: { verdict: PlanVerdict; d
       ) : null}
       {verdict.suspect ? (
         <Link
-          href={`/circuits/${circuitId}/workspace?focus=${encodeURIComponent(verdict.suspect.id)}${verdict.stateId ? `&state=${encodeURIComponent(verdict.stateId)}` : ""}`}
+          href={`/circuits/${circuitId}/workspace?focus=${encodeURIComponent(verdict.suspect.id)}${verdict.stateId ? `&state=${encodeURIComponent(verdict.stateId)}` : ""}&readings=1`}
           className="mt-3 inline-block rounded-md bg-copper-600 px-3 py-1.5 text-sm font-semibold text-white hover:bg-copper-700"
           data-testid="plan-show-suspect"
         >

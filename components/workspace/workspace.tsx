@@ -69,13 +69,13 @@ function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
 }
 
 /** The circuit workspace: load, edit on the canvas with undo, solve live, and save each change as a new version. */
-export function Workspace({ circuitId, focus, state }: { circuitId: string; focus?: string[]; state?: string }) {
+export function Workspace({ circuitId, focus, state, readings }: { circuitId: string; focus?: string[]; state?: string; readings?: boolean }) {
   const { data, error } = useCircuit(circuitId);
   if (error) return <Unavailable title="This circuit cannot be opened" message={error.message} className="mx-auto max-w-3xl px-4 py-10" />;
   if (!data) return <p className="px-4 py-10 text-graphite-500">Opening the circuit...</p>;
   return (
     <ReactFlowProvider>
-      <Editor circuitId={circuitId} initial={withPositions(data.circuit.document)} version={data.circuit.version} jobId={data.circuit.jobId} jobTitle={data.circuit.jobTitle} canEdit={data.canEdit} focus={focus} initialState={state} />
+      <Editor circuitId={circuitId} initial={withPositions(data.circuit.document)} version={data.circuit.version} jobId={data.circuit.jobId} jobTitle={data.circuit.jobTitle} canEdit={data.canEdit} focus={focus} initialState={state} showReadings={readings} />
     </ReactFlowProvider>
   );
 }
@@ -103,6 +103,8 @@ function Editor(props: {
   /** Parts or cables to choose and centre on when the canvas opens (a test plan's suspect). */
   focus?: string[];
   initialState?: string;
+  /** Start with the meter readings drawn on the canvas (they are off by default: they crowd a busy drawing). */
+  showReadings?: boolean;
 }) {
   const flow = useReactFlow();
   const [doc, setDoc] = useState(props.initial);
@@ -209,7 +211,7 @@ function Editor(props: {
 
   const figures = useMemo(() => assess(doc, result), [doc, result]);
   const readings = useReadings(props.circuitId ?? "", Boolean(props.circuitId));
-  const [showReadings, setShowReadings] = useState(true);
+  const [showReadings, setShowReadings] = useState(Boolean(props.showReadings));
   const figureById = useMemo(() => new Map(figures.map((f) => [f.id, f])), [figures]);
 
   // ---- canvas nodes follow the document; xyflow's own measurements and selection are kept. A node whose part and

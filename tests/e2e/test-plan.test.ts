@@ -59,7 +59,7 @@ describe("the charging-system test plan in the browser", () => {
 
     await page.setViewportSize({ width: 1440, height: 900 });
     await page.getByTestId("plan-show-suspect").click();
-    await page.waitForURL(/\/workspace\?focus=JAC&state=charge$/);
+    await page.waitForURL(/\/workspace\?focus=JAC&state=charge&readings=1$/);
     const jac = page.locator('.react-flow__node[data-id="JAC"]');
     await expect.poll(() => jac.getAttribute("class")).toContain("selected");
     expect(await page.getByTestId("ws-state").inputValue()).toBe("charge");
