@@ -4,6 +4,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { DEMO_PASSWORD, demoShop } from "@/db/demo";
 import { DEMO_SHARE_TOKEN, pickupCharging } from "@/db/demo-work";
 import { baseUrl, screenshot, sharedBrowser, signedInContext, watchPage } from "../support/browser";
+import { waitForMail } from "../support/maildev";
 
 const browser = sharedBrowser();
 let priya: BrowserContext;
@@ -52,7 +53,7 @@ describe("photos on readings, the printable report and a shared link", () => {
     await page.close();
   });
 
-  it("prints the job report and opens the demo's shared link without signing in", async () => {
+  it("prints the job report, e-mails it with the PDF and a link, and opens the demo's shared link signed out", async () => {
     const page = await priya.newPage();
     const watch = watchPage(page);
     await page.goto(`${baseUrl}/jobs/job_demo_unit14/report`, { waitUntil: "networkidle" });
@@ -62,6 +63,19 @@ describe("photos on readings, the printable report and a shared link", () => {
     const pdf = await priya.request.get(`${baseUrl}/api/v1/jobs/job_demo_unit14/report.pdf`);
     expect(pdf.headers()["content-type"]).toBe("application/pdf");
     expect((await pdf.body()).subarray(0, 5).toString()).toBe("%PDF-");
+
+    // E-mail it with a read-only link: a bad address is refused in the form, a good one goes out with the PDF.
+    await page.getByTestId("report-email-open").click();
+    await page.getByTestId("report-email-to").fill("not an address");
+    await page.getByTestId("report-email-send").click();
+    await page.getByTestId("report-email-form").getByRole("alert").first().waitFor();
+    await page.getByTestId("report-email-to").fill("fleet.desk@customer.example");
+    await page.getByTestId("report-email-link").check();
+    await page.getByTestId("report-email-send").click();
+    await page.getByTestId("report-email-sent").waitFor();
+    const mail = (await waitForMail("fleet.desk@customer.example", /^Report: Battery light at idle/)) as Awaited<ReturnType<typeof waitForMail>> & { attachments?: { filename: string }[] };
+    expect(mail.text).toContain("/shared/");
+    expect(mail.attachments?.map((a) => a.filename)).toEqual([expect.stringMatching(/\.pdf$/)]);
     expect(watch.problems).toEqual([]);
     await page.close();
 
