@@ -185,14 +185,13 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   }
   if (reference < 0) reference = firstBatteryNeg >= 0 ? firstBatteryNeg : terminalNames.length > 0 ? 0 : -1;
 
-  // "B1.pos" -> the terminal's index, through the component's first terminal (terminals are consecutive).
-  const terminalOf = (ref: string): number | undefined => {
-    const dot = ref.lastIndexOf(".");
-    const ci = componentIndex.get(ref.slice(0, dot));
-    if (ci === undefined) return undefined;
-    const k = TERMINALS[unique[ci].kind].indexOf(ref.slice(dot + 1));
-    return k < 0 ? undefined : componentTerminal[ci] + k;
-  };
+  // "B1.pos" -> the terminal's index: one lookup in a map of every terminal's name (terminals are numbered in the
+  // order their names were listed).
+  const terminalIndex = new Map<string, number>();
+  for (let t = 0; t < terminalNames.length; t++) terminalIndex.set(terminalNames[t], t);
+  const terminalOf = (ref: string): number | undefined => terminalIndex.get(ref);
+  // Resistance per metre by size, material and conductor temperature: a harness repeats a few sizes many times.
+  const perMetre = new Map<string, number>();
   const ambientC = doc.ambientC ?? CIRCUIT_DEFAULTS.ambientC;
   const tempChoice = doc.conductorTemp ?? CIRCUIT_DEFAULTS.conductorTemp;
   const wired = new Uint8Array(terminalNames.length);
@@ -218,15 +217,18 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
       });
       return;
     }
-    const size = w.size ? findSize(w.size) : undefined;
-    const r =
-      w.resistanceOhm ??
-      conductorResistanceOhm(
-        size!,
-        (w.material ?? CIRCUIT_DEFAULTS.material) as MaterialId,
-        w.lengthM ?? 0,
-        conductorTempC(tempChoice, ambientC, w.insulationRatingC ?? CIRCUIT_DEFAULTS.insulationRatingC),
-      );
+    let r = w.resistanceOhm;
+    if (r === undefined) {
+      const material = (w.material ?? CIRCUIT_DEFAULTS.material) as MaterialId;
+      const tempC = conductorTempC(tempChoice, ambientC, w.insulationRatingC ?? CIRCUIT_DEFAULTS.insulationRatingC);
+      const key = `${w.size}|${material}|${tempC}`;
+      let ohmPerM = perMetre.get(key);
+      if (ohmPerM === undefined) {
+        ohmPerM = conductorResistanceOhm(findSize(w.size!)!, material, 1, tempC);
+        perMetre.set(key, ohmPerM);
+      }
+      r = ohmPerM * (w.lengthM ?? 0);
+    }
     wireResistance[wi] = r;
     wired[ia as number] = 1;
     wired[ib as number] = 1;
