@@ -72,6 +72,10 @@ cat >&2 <<MSG
         lena@fernmoor.example (class owner)    jonah@fernmoor.example (instructor)
         ines@fernmoor.example (student)        theo@fernmoor.example (student)
         ruth@fernmoor.example (observer)
+    - As priya: Jobs > "Battery light, Unit 27" > its circuit > Follow a test plan, and enter readings to reach a
+      verdict; Jobs > "Battery light at idle" > Report for the printable report, PDF and e-mail; the shared copy is
+      at http://127.0.0.1:$PORT/shared/ampwright-demo-unit-14-battery-light-report
+    - As lena or ines: Lessons, to open the published bench-trainer lesson and make a copy.
 
   Press Ctrl-C to stop the server and the database it started.
 
