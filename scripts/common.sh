@@ -18,7 +18,9 @@ ensure_node_modules() {
   local stamp="$ROOT/node_modules/.package-lock.json"
   if [ ! -f "$stamp" ] || [ "$ROOT/package-lock.json" -nt "$stamp" ]; then
     say "installing npm dependencies (npm ci)"
-    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+    # --include=dev: npm start runs with NODE_ENV=production, under which npm ci would leave out the build's tools
+    # (Tailwind's PostCSS plugin, TypeScript); the build needs them.
+    (cd "$ROOT" && npm ci --include=dev --no-audit --no-fund --loglevel=error)
   fi
 }
 
