@@ -1,7 +1,8 @@
 import { createHash } from "node:crypto";
-import { HeadBucketCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { HeadBucketCommand, PutObjectCommand } from "@aws-sdk/client-s3";
 import sharp from "sharp";
 import { env } from "@/lib/env";
+import { makeS3Client, thumbnailKeyOf, thumbnailOf } from "@/lib/storage/client";
 
 /**
  * The demo's photos: a picture of a meter showing a reading, drawn here (shapes only, so no font is needed) and put
@@ -55,22 +56,14 @@ export async function meterPhoto(reading: string): Promise<Buffer> {
 /** Puts a photo and its thumbnail in the object store; undefined when the store cannot be reached (then try later). */
 export async function storeDemoPhoto(key: string, photo: Buffer): Promise<{ sizeBytes: number; sha256: string; thumbnailKey: string } | undefined> {
   const e = env();
-  const s3 = new S3Client({
-    endpoint: e.S3_ENDPOINT,
-    region: e.S3_REGION,
-    forcePathStyle: true,
-    credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
-    requestChecksumCalculation: "WHEN_REQUIRED",
-    responseChecksumValidation: "WHEN_REQUIRED",
-    maxAttempts: 1,
-  });
+  const s3 = makeS3Client({ maxAttempts: 1 });
   try {
     await s3.send(new HeadBucketCommand({ Bucket: e.S3_BUCKET }));
   } catch {
     return undefined;
   }
-  const thumbnailKey = `${key}.thumb.webp`;
-  const thumb = await sharp(photo).resize(320, 320, { fit: "inside" }).webp({ quality: 72 }).toBuffer();
+  const thumbnailKey = thumbnailKeyOf(key);
+  const thumb = await thumbnailOf(photo);
   await s3.send(new PutObjectCommand({ Bucket: e.S3_BUCKET, Key: key, Body: photo, ContentType: "image/jpeg" }));
   await s3.send(new PutObjectCommand({ Bucket: e.S3_BUCKET, Key: thumbnailKey, Body: thumb, ContentType: "image/webp" }));
   s3.destroy();

@@ -1,15 +1,13 @@
 import "server-only";
 import { createHash } from "node:crypto";
 import { fileTypeFromBuffer } from "file-type";
-import sharp from "sharp";
 import { db } from "@/db";
 import { attachmentKeys, deleteAttachmentRow, getAttachment, markAttachmentReady } from "@/db/queries/attachments";
 import { ApiError } from "@/lib/api/errors";
 import { ATTACHMENT_TYPES, isAttachmentType, MAX_ATTACHMENT_BYTES } from "@/lib/validators/attachments";
+import { thumbnailKeyOf, thumbnailOf } from "./client";
 import { deleteObject, objectSize, readObject, writeObject } from "./s3";
 
-/** Thumbnails: at most 320 px on the long side, WebP. */
-const THUMB_PX = 320;
 /** Types sharp (as shipped on npm) can read for a thumbnail; HEIC is kept without one. */
 const THUMBNAILED = new Set(["image/jpeg", "image/png", "image/webp"]);
 
@@ -43,8 +41,8 @@ export async function finishUpload(p: { id: string; organizationId: string; jobI
   let thumbnailKey: string | null = null;
   if (THUMBNAILED.has(type)) {
     try {
-      const thumb = await sharp(bytes).rotate().resize(THUMB_PX, THUMB_PX, { fit: "inside", withoutEnlargement: true }).webp({ quality: 72 }).toBuffer();
-      thumbnailKey = `${keys.objectKey}.thumb.webp`;
+      const thumb = await thumbnailOf(bytes);
+      thumbnailKey = thumbnailKeyOf(keys.objectKey);
       await writeObject(thumbnailKey, thumb, "image/webp");
     } catch {
       // A photo sharp cannot read (a damaged file) is still kept; it shows as a file without a picture.

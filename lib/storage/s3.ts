@@ -1,24 +1,14 @@
 import "server-only";
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, type S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
+import { makeS3Client } from "./client";
 
 let client: S3Client | undefined;
 
-/**
- * The object store: any S3-compatible service, addressed path-style, with checksums only where the service asks
- * for them, so presigned uploads behave the same on the local stand-in (s3rver) and on a real store.
- */
+/** The object store's client, made once (see makeS3Client). */
 export function s3(): S3Client {
-  const e = env();
-  client ??= new S3Client({
-    endpoint: e.S3_ENDPOINT,
-    region: e.S3_REGION,
-    forcePathStyle: true,
-    credentials: { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY },
-    requestChecksumCalculation: "WHEN_REQUIRED",
-    responseChecksumValidation: "WHEN_REQUIRED",
-  });
+  client ??= makeS3Client();
   return client;
 }
 

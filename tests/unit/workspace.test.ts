@@ -4,7 +4,7 @@ import { loadCircuit } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
 import { assess, bandOf } from "@/lib/workspace/analysis";
 import { addComponent, addWire, copyItems, freeSpot, pasteItems, removeItems } from "@/lib/workspace/edit";
-import { DEFAULT_PREFS, ratingShown, sizeShown } from "@/components/workspace/properties-panel";
+import { DEFAULT_PREFS, ratingShown, sizeShown } from "@/lib/workspace/prefs";
 
 describe("workspace edits", () => {
   it("adds parts with the next free id, joins them, and keeps the document valid", () => {
