@@ -29,7 +29,7 @@ export function LimitsForm({ orgId, canEdit, limits, own, updated }: Props) {
       data-testid="limits-form"
     >
       <p className="text-sm text-graphite-700">
-        Test plans judge readings by these figures. Each starts at common practice; set your own where your vehicles&rsquo; makers or your shop&rsquo;s experience say otherwise. An empty box means the default.
+        Test plans judge readings by these figures. Each starts at common practice; set your own where the vehicle makers&rsquo; figures or your own experience say otherwise. An empty box means the default.
       </p>
       <table className="mt-3 w-full text-sm">
         <thead>
