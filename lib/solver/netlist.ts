@@ -24,6 +24,8 @@ export const EL = {
 
 export type Netlist = {
   terminalNames: string[];
+  /** The component (by position in `components`) each terminal belongs to. */
+  terminalComponent: Int32Array;
   /** Which component or wire (by position in ownerIds) each element belongs to. */
   ownerIds: string[];
   count: number;
@@ -86,20 +88,22 @@ export function applyState(doc: CircuitDocument, stateId: string): { components:
 /** Reads components and wires into elements between terminals, reporting every reference problem as an issue. */
 export function buildNetlist(doc: CircuitDocument, components: Component[]): Netlist {
   const issues: SolveIssue[] = [];
-  const terminalNames: string[] = [];
-  const componentIndex = new Map<string, number>();
-  const seen = new Map<string, string>();
+  // One map of every id: a component's position in `unique` (>= 0), or a wire (-1). It finds duplicates and reads
+  // "B1.pos" as component B1's terminal "pos" without building a name for every terminal first.
+  const ids = new Map<string, number>();
   const unique: Component[] = [];
+  let terminalCount = 0;
   for (const c of components) {
-    if (seen.has(c.id)) {
+    if (ids.has(c.id)) {
       issues.push({ severity: "error", code: "duplicate-id", message: `Two components are called ${c.id}; give each its own id.`, ids: [c.id] });
       continue;
     }
-    seen.set(c.id, "component");
-    componentIndex.set(c.id, unique.length);
+    ids.set(c.id, unique.length);
     unique.push(c);
-    for (const t of TERMINALS[c.kind]) terminalNames.push(`${c.id}.${t}`);
+    terminalCount += TERMINALS[c.kind].length;
   }
+  const terminalNames: string[] = new Array(terminalCount);
+  const terminalComponent = new Int32Array(terminalCount);
 
   const cap = unique.length + doc.wires.length;
   const type = new Uint8Array(cap);
@@ -129,9 +133,11 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   let nextTerminal = 0;
   unique.forEach((c, ci) => {
     const t0 = nextTerminal;
-    const t1 = TERMINALS[c.kind].length > 1 ? t0 + 1 : -1;
-    nextTerminal += TERMINALS[c.kind].length;
+    const nt = TERMINALS[c.kind].length;
+    const t1 = nt > 1 ? t0 + 1 : -1;
+    nextTerminal += nt;
     componentTerminal[ci] = t0;
+    for (let k = 0; k < nt; k++) terminalComponent[t0 + k] = ci;
     const resistive = (r: number) => (r > 0 ? add(EL.resistor, t0, t1, 1 / r, 0, c.id) : add(EL.link, t0, t1, 0, 0, c.id));
     switch (c.kind) {
       case "battery":
@@ -183,60 +189,85 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
       ids: references,
     });
   }
-  if (reference < 0) reference = firstBatteryNeg >= 0 ? firstBatteryNeg : terminalNames.length > 0 ? 0 : -1;
+  if (reference < 0) reference = firstBatteryNeg >= 0 ? firstBatteryNeg : terminalCount > 0 ? 0 : -1;
 
-  // "B1.pos" -> the terminal's index: one lookup in a map of every terminal's name (terminals are numbered in the
-  // order their names were listed).
-  const terminalIndex = new Map<string, number>();
-  for (let t = 0; t < terminalNames.length; t++) terminalIndex.set(terminalNames[t], t);
-  const terminalOf = (ref: string): number | undefined => terminalIndex.get(ref);
+  // "B1.pos" -> the terminal's index: the component from the id map, the terminal by its name among the kind's few.
+  // A wire's own text becomes the terminal's name (the result's key), so most names are never built.
+  const terminalOf = (ref: string): number | undefined => {
+    const dot = ref.lastIndexOf(".");
+    if (dot <= 0) return undefined;
+    const ci = ids.get(ref.slice(0, dot));
+    if (ci === undefined || ci < 0) return undefined;
+    const names = TERMINALS[unique[ci].kind];
+    const len = ref.length - dot - 1;
+    for (let k = 0; k < names.length; k++) {
+      if (names[k].length === len && ref.startsWith(names[k], dot + 1)) {
+        const t = componentTerminal[ci] + k;
+        terminalNames[t] ??= ref;
+        return t;
+      }
+    }
+    return undefined;
+  };
   // Resistance per metre by size, material and conductor temperature: a harness repeats a few sizes many times.
   const perMetre = new Map<string, number>();
   const ambientC = doc.ambientC ?? CIRCUIT_DEFAULTS.ambientC;
   const tempChoice = doc.conductorTemp ?? CIRCUIT_DEFAULTS.conductorTemp;
-  const wired = new Uint8Array(terminalNames.length);
-  const wireIds: string[] = [];
+  const wired = new Uint8Array(terminalCount);
+  const wireIds: string[] = new Array(doc.wires.length);
   const wireElement = new Int32Array(doc.wires.length).fill(-1);
   const wireResistance = new Float64Array(doc.wires.length);
-  doc.wires.forEach((w, wi) => {
-    wireIds.push(w.id);
-    if (seen.has(w.id)) {
+  let lastKey = "";
+  let lastOhmPerM = 0;
+  for (let wi = 0; wi < doc.wires.length; wi++) {
+    const w = doc.wires[wi];
+    wireIds[wi] = w.id;
+    if (ids.has(w.id)) {
       issues.push({ severity: "error", code: "duplicate-id", message: `The id ${w.id} is used twice (wires and components share one list of ids).`, ids: [w.id] });
-      return;
+      continue;
     }
-    seen.set(w.id, "wire");
+    ids.set(w.id, -1);
     const ia = terminalOf(w.from);
     const ib = terminalOf(w.to);
-    const missing = [ia === undefined ? w.from : null, ib === undefined ? w.to : null].filter(Boolean) as string[];
-    if (missing.length) {
+    if (ia === undefined || ib === undefined) {
+      const missing = [ia === undefined ? w.from : null, ib === undefined ? w.to : null].filter(Boolean) as string[];
       issues.push({
         severity: "error",
         code: "unknown-terminal",
         message: `Wire ${w.id} goes to ${missing.join(" and ")}, which ${missing.length > 1 ? "are not terminals" : "is not a terminal"} of this circuit. Check the component id and the terminal name (${describeTerminals(missing[0], unique)}).`,
         ids: [w.id],
       });
-      return;
+      continue;
     }
     let r = w.resistanceOhm;
     if (r === undefined) {
       const material = (w.material ?? CIRCUIT_DEFAULTS.material) as MaterialId;
       const tempC = conductorTempC(tempChoice, ambientC, w.insulationRatingC ?? CIRCUIT_DEFAULTS.insulationRatingC);
       const key = `${w.size}|${material}|${tempC}`;
-      let ohmPerM = perMetre.get(key);
+      let ohmPerM = key === lastKey ? lastOhmPerM : perMetre.get(key);
       if (ohmPerM === undefined) {
         ohmPerM = conductorResistanceOhm(findSize(w.size!)!, material, 1, tempC);
         perMetre.set(key, ohmPerM);
       }
+      lastKey = key;
+      lastOhmPerM = ohmPerM;
       r = ohmPerM * (w.lengthM ?? 0);
     }
     wireResistance[wi] = r;
-    wired[ia as number] = 1;
-    wired[ib as number] = 1;
-    wireElement[wi] = r > 0 ? add(EL.resistor, ia as number, ib as number, 1 / r, 0, w.id) : add(EL.link, ia as number, ib as number, 0, 0, w.id);
-  });
+    wired[ia] = 1;
+    wired[ib] = 1;
+    wireElement[wi] = r > 0 ? add(EL.resistor, ia, ib, 1 / r, 0, w.id) : add(EL.link, ia, ib, 0, 0, w.id);
+  }
+  // Terminals no wire names get their names built here.
+  for (let ci = 0; ci < unique.length; ci++) {
+    const c = unique[ci];
+    const names = TERMINALS[c.kind];
+    for (let k = 0; k < names.length; k++) terminalNames[componentTerminal[ci] + k] ??= `${c.id}.${names[k]}`;
+  }
 
   return {
     terminalNames,
+    terminalComponent,
     ownerIds,
     count,
     type,

@@ -631,13 +631,12 @@ function kclResidual(out: Float64Array, rep: Int32Array, fixed: Int8Array, T: nu
 
 function reportFloating(net: Netlist, floating: Uint8Array, islandOf: Int32Array, issues: SolveIssue[]): void {
   const groups = new Map<number, Set<string>>();
-  net.terminalNames.forEach((tn, t) => {
-    if (!floating[t] || !net.wired[t]) return;
-    const cid = tn.slice(0, tn.lastIndexOf("."));
+  for (let t = 0; t < net.terminalNames.length; t++) {
+    if (!floating[t] || !net.wired[t]) continue;
     let g = groups.get(islandOf[t]);
     if (!g) groups.set(islandOf[t], (g = new Set()));
-    g.add(cid);
-  });
+    g.add(net.components[net.terminalComponent[t]].id);
+  }
   for (const ids of groups.values()) {
     const list = [...ids];
     issues.push({
