@@ -93,12 +93,17 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   const ids = new Map<string, number>();
   const unique: Component[] = [];
   let terminalCount = 0;
+  // One map operation per id (a large map costs a cache miss per operation): a set that does not grow the map met a
+  // duplicate, and the rare duplicate puts the first holder's index back.
+  const firstHolder = (id: string) => unique.findIndex((u) => u.id === id);
   for (const c of components) {
-    if (ids.has(c.id)) {
+    const before = ids.size;
+    ids.set(c.id, unique.length);
+    if (ids.size === before) {
+      ids.set(c.id, firstHolder(c.id));
       issues.push({ severity: "error", code: "duplicate-id", message: `Two components are called ${c.id}; give each its own id.`, ids: [c.id] });
       continue;
     }
-    ids.set(c.id, unique.length);
     unique.push(c);
     terminalCount += TERMINALS[c.kind].length;
   }
@@ -217,16 +222,21 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
   const wireIds: string[] = new Array(doc.wires.length);
   const wireElement = new Int32Array(doc.wires.length).fill(-1);
   const wireResistance = new Float64Array(doc.wires.length);
-  let lastKey = "";
+  // The last size, material and temperature looked up, and its resistance per metre (runs of one size are common).
+  let lastSize: string | undefined;
+  let lastMaterial = "";
+  let lastTempC = NaN;
   let lastOhmPerM = 0;
   for (let wi = 0; wi < doc.wires.length; wi++) {
     const w = doc.wires[wi];
     wireIds[wi] = w.id;
-    if (ids.has(w.id)) {
+    const before = ids.size;
+    ids.set(w.id, -1);
+    if (ids.size === before) {
+      ids.set(w.id, firstHolder(w.id));
       issues.push({ severity: "error", code: "duplicate-id", message: `The id ${w.id} is used twice (wires and components share one list of ids).`, ids: [w.id] });
       continue;
     }
-    ids.set(w.id, -1);
     const ia = terminalOf(w.from);
     const ib = terminalOf(w.to);
     if (ia === undefined || ib === undefined) {
@@ -243,15 +253,19 @@ export function buildNetlist(doc: CircuitDocument, components: Component[]): Net
     if (r === undefined) {
       const material = (w.material ?? CIRCUIT_DEFAULTS.material) as MaterialId;
       const tempC = conductorTempC(tempChoice, ambientC, w.insulationRatingC ?? CIRCUIT_DEFAULTS.insulationRatingC);
-      const key = `${w.size}|${material}|${tempC}`;
-      let ohmPerM = key === lastKey ? lastOhmPerM : perMetre.get(key);
-      if (ohmPerM === undefined) {
-        ohmPerM = conductorResistanceOhm(findSize(w.size!)!, material, 1, tempC);
-        perMetre.set(key, ohmPerM);
+      if (w.size !== lastSize || material !== lastMaterial || tempC !== lastTempC) {
+        const key = `${w.size}|${material}|${tempC}`;
+        let ohmPerM = perMetre.get(key);
+        if (ohmPerM === undefined) {
+          ohmPerM = conductorResistanceOhm(findSize(w.size!)!, material, 1, tempC);
+          perMetre.set(key, ohmPerM);
+        }
+        lastSize = w.size;
+        lastMaterial = material;
+        lastTempC = tempC;
+        lastOhmPerM = ohmPerM;
       }
-      lastKey = key;
-      lastOhmPerM = ohmPerM;
-      r = ohmPerM * (w.lengthM ?? 0);
+      r = lastOhmPerM * (w.lengthM ?? 0);
     }
     wireResistance[wi] = r;
     wired[ia] = 1;

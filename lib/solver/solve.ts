@@ -18,6 +18,8 @@ type Network = {
   iterations: number;
   residual: number;
   issues: SolveIssue[];
+  /** The pass stopped before Newton settled because an alternator's mode was already violated. */
+  early?: boolean;
 };
 
 /**
@@ -62,28 +64,27 @@ export function solveCircuit(doc: CircuitDocument, opts: Partial<SolveOptions> =
   // Passes whose modes may still change stop Newton early (loose); the last pass is always a tight one.
   const loose = 1e-3 / Math.max(1, doc.systemVoltage);
   let tight = !st.hasPower || alternators.length === 0;
+  // A loose pass may also stop as soon as a mode is violated (a bounded number of times, so the loop still ends);
+  // such a pass is not counted as a visit of its modes.
+  let earlyStops = 0;
   for (;;) {
     passes++;
-    visited.add(modes.join(","));
+    const key = modes.join(",");
+    visited.add(key);
     // Each pass starts from the previous pass's voltages, so Newton has little left to do.
     const tolerance = tight ? options.voltageTolerance : Math.max(loose, options.voltageTolerance);
-    result = iterate(net, st, modes, doc.systemVoltage, { ...options, voltageTolerance: tolerance }, result?.ok ? result.v : undefined, tight);
+    const probe = !tight && earlyStops < 2 * alternators.length + 2;
+    result = iterate(net, st, modes, doc.systemVoltage, { ...options, voltageTolerance: tolerance }, result?.ok ? result.v : undefined, tight, probe);
     iterations += result.iterations;
     if (!result.ok) break;
+    if (result.early) {
+      earlyStops++;
+      visited.delete(key);
+    }
     let changed = false;
     alternators.forEach((e, k) => {
       if (!st.altUsable[e]) return;
-      const delivered = -result!.current[e];
-      const volts = result!.v[net.a[e]] - result!.v[net.b[e]];
-      const rated = net.g[e];
-      const vreg = net.value[e];
-      let next = modes[k];
-      if (modes[k] === "regulating") {
-        if (delivered > rated + options.modeToleranceA) next = "current-limit";
-        else if (delivered < -options.modeToleranceA) next = "blocked";
-      } else if (modes[k] === "current-limit") {
-        if (volts > vreg + 1e-9) next = "regulating";
-      } else if (volts < vreg - 1e-9) next = "regulating";
+      const next = judgeMode(modes[k], -result!.current[e], result!.v[net.a[e]] - result!.v[net.b[e]], net.g[e], net.value[e], options.modeToleranceA);
       if (next !== modes[k]) {
         modes[k] = next;
         changed = true;
@@ -182,6 +183,11 @@ type Structure = {
   /** Alternators that can regulate (their terminals are distinct nodes of one island). */
   altUsable: Uint8Array;
   hasPower: boolean;
+  /** The linear elements' stamps (resistors, batteries, current sources): the same in every Newton step and mode. */
+  baseAx: Float64Array;
+  baseRhs: Float64Array;
+  /** Constant-power loads, restamped at every Newton step. */
+  powerLoads: Int32Array;
 };
 
 function prepare(net: Netlist, issues: SolveIssue[]): Structure {
@@ -344,9 +350,77 @@ function prepare(net: Netlist, issues: SolveIssue[]): Structure {
       pos[4 * e + 3] = position(pattern, y, x);
     }
   }
-  let hasPower = false;
-  for (let e = 0; e < net.count; e++) if (types[e] === POWER) hasPower = true;
-  return { T, rep, off, tree, fixed, fixedValue, index, n, pattern, sym, pos, deadSource, alternators, altUsable, hasPower };
+  const st: Structure = {
+    T,
+    rep,
+    off,
+    tree,
+    fixed,
+    fixedValue,
+    index,
+    n,
+    pattern,
+    sym,
+    pos,
+    deadSource,
+    alternators,
+    altUsable,
+    hasPower: false,
+    baseAx: new Float64Array(pattern.rowIdx.length),
+    baseRhs: new Float64Array(n),
+    powerLoads: new Int32Array(0),
+  };
+  const powerLoads: number[] = [];
+  for (let e = 0; e < net.count; e++) {
+    const t = types[e];
+    if (t === RES) stamp(net, st, e, net.g[e], 0, st.baseAx, st.baseRhs);
+    else if (t === NORTON) stamp(net, st, e, net.g[e], -net.g[e] * net.value[e], st.baseAx, st.baseRhs);
+    else if (t === ISRC) {
+      if (!deadSource[e]) stamp(net, st, e, 0, net.value[e], st.baseAx, st.baseRhs);
+    } else if (t === POWER) powerLoads.push(e);
+  }
+  st.powerLoads = Int32Array.from(powerLoads);
+  st.hasPower = powerLoads.length > 0;
+  return st;
+}
+
+/**
+ * Stamps one element's linearised current g (v_a - v_b) + J into a matrix and right-hand side. A fixed node's voltage
+ * (a supernode holding the reference or an island's anchor) goes to the right-hand side.
+ */
+function stamp(net: Netlist, st: Structure, e: number, g: number, J: number, A: Float64Array, R: Float64Array): void {
+  const { rep, off, index, pos, fixedValue } = st;
+  const ia = net.a[e];
+  const ib = net.b[e];
+  const ra = rep[ia];
+  const rb = rep[ib];
+  if (ra === rb) return;
+  const c = g * (off[ia] - off[ib]) + J; // constant part of the current a -> b
+  const xa = index[ra];
+  const xb = index[rb];
+  if (xa >= 0) {
+    A[pos[4 * e]] += g;
+    R[xa] -= c;
+    if (xb >= 0) A[pos[4 * e + 2]] -= g;
+    else R[xa] += g * fixedValue[rb];
+  }
+  if (xb >= 0) {
+    A[pos[4 * e + 1]] += g;
+    R[xb] += c;
+    if (xa >= 0) A[pos[4 * e + 3]] -= g;
+    else R[xb] += g * fixedValue[ra];
+  }
+}
+
+/** The mode an alternator should switch to, judged from what it delivers and the voltage across it. */
+function judgeMode(mode: AlternatorMode, delivered: number, volts: number, rated: number, vreg: number, toleranceA: number): AlternatorMode {
+  if (mode === "regulating") {
+    if (delivered > rated + toleranceA) return "current-limit";
+    if (delivered < -toleranceA) return "blocked";
+    return mode;
+  }
+  if (mode === "current-limit") return volts > vreg + 1e-9 ? "regulating" : mode;
+  return volts < vreg - 1e-9 ? "regulating" : mode;
 }
 
 /** Newton iterations for one set of alternator modes, on the prepared structure. */
@@ -358,8 +432,9 @@ function iterate(
   options: SolveOptions,
   warm: Float64Array | undefined,
   final: boolean,
+  probe: boolean,
 ): Network {
-  const { T, rep, off, fixed, fixedValue, index, n, pattern, sym, pos, deadSource, alternators, altUsable, hasPower } = st;
+  const { T, rep, off, fixed, fixedValue, index, n, pattern, sym, deadSource, alternators, altUsable, hasPower, baseAx, baseRhs, powerLoads } = st;
   const issues: SolveIssue[] = [];
   const altMode = new Int8Array(net.count);
   alternators.forEach((e, k) => (altMode[e] = modes[k] === "regulating" ? REGULATING : modes[k] === "current-limit" ? LIMITED : 3));
@@ -387,57 +462,40 @@ function iterate(
   let converged = false;
   let fixedPoint = false;
   let lastDv = 0;
-  // Stamp one element's linearised current g (v_a - v_b) + J into a matrix and right-hand side.
-  const stamp = (e: number, g: number, J: number, A: Float64Array, R: Float64Array) => {
-    const ia = ta[e];
-    const ib = tb[e];
-    const ra = rep[ia];
-    const rb = rep[ib];
-    if (ra === rb) return;
-    const c = g * (off[ia] - off[ib]) + J; // constant part of the current a -> b
-    const xa = index[ra];
-    const xb = index[rb];
-    if (xa >= 0) {
-      A[pos[4 * e]] += g;
-      R[xa] -= c;
-      if (xb >= 0) A[pos[4 * e + 2]] -= g;
-      else R[xa] += g * V[rb];
+  let early = false;
+  const modeViolated = () => {
+    for (let k = 0; k < mA; k++) {
+      const e = active[k];
+      if (judgeMode("regulating", lambda[k], 0, eg[e], ev[e], options.modeToleranceA) !== "regulating") return true;
     }
-    if (xb >= 0) {
-      A[pos[4 * e + 1]] += g;
-      R[xb] += c;
-      if (xa >= 0) A[pos[4 * e + 3]] -= g;
-      else R[xb] += g * V[ra];
+    for (let k = 0; k < alternators.length; k++) {
+      const e = alternators[k];
+      if (!altUsable[e] || modes[k] === "regulating") continue;
+      if (judgeMode(modes[k], 0, volts(e), eg[e], ev[e], options.modeToleranceA) !== modes[k]) return true;
     }
+    return false;
   };
-  // The linear parts do not change between Newton steps: stamp them once, and only the rest each step.
-  const baseAx = new Float64Array(pattern.rowIdx.length);
-  const baseRhs = new Float64Array(n);
-  const dynamic: number[] = [];
-  for (let e = 0; e < net.count; e++) {
-    const t = types[e];
-    if (t === RES) stamp(e, eg[e], 0, baseAx, baseRhs);
-    else if (t === NORTON) stamp(e, eg[e], -eg[e] * ev[e], baseAx, baseRhs);
-    else if (t === ISRC) {
-      if (!deadSource[e]) stamp(e, 0, ev[e], baseAx, baseRhs);
-    } else if (t === POWER || (t === ALT && altMode[e] === LIMITED && !deadSource[e])) dynamic.push(e);
+  // Alternators held at their rated current are current sources (the rated current leaves at the out terminal, a:
+  // a -> b is negative); constant-power loads are relinearised at each step.
+  const limited = alternators.filter((e) => altMode[e] === LIMITED && !deadSource[e]);
+  let baseAxModes = baseAx;
+  let baseRhsModes = baseRhs;
+  if (limited.length) {
+    baseAxModes = baseAx.slice();
+    baseRhsModes = baseRhs.slice();
+    for (const e of limited) stamp(net, st, e, 0, -eg[e], baseAxModes, baseRhsModes);
   }
   for (let it = 0; it < options.maxNewtonIterations; it++) {
     iterations++;
-    ax.set(baseAx);
-    rhs.set(baseRhs);
-    for (let k = 0; k < dynamic.length; k++) {
-      const e = dynamic[k];
-      if (types[e] === ALT) {
-        // At its limit the rated current leaves the alternator at its out terminal (a): a -> b is negative.
-        stamp(e, 0, -eg[e], ax, rhs);
-        continue;
-      }
+    ax.set(baseAxModes);
+    rhs.set(baseRhsModes);
+    for (let k = 0; k < powerLoads.length; k++) {
+      const e = powerLoads[k];
       const P = ev[e];
       const v0 = it === 0 && !warm ? systemVoltage : volts(e);
-      if (v0 < vmin) stamp(e, P / (vmin * vmin), 0, ax, rhs);
-      else if (fixedPoint) stamp(e, P / (v0 * v0), 0, ax, rhs);
-      else stamp(e, -P / (v0 * v0), (2 * P) / v0, ax, rhs);
+      if (v0 < vmin) stamp(net, st, e, P / (vmin * vmin), 0, ax, rhs);
+      else if (fixedPoint) stamp(net, st, e, P / (v0 * v0), 0, ax, rhs);
+      else stamp(net, st, e, -P / (v0 * v0), (2 * P) / v0, ax, rhs);
     }
     const bad = numeric(pattern, ax, sym);
     if (bad >= 0) {
@@ -505,6 +563,12 @@ function iterate(
       V[t] = x[k];
     }
     lastDv = dv;
+    if (probe && hasPower && modeViolated()) {
+      // A pass whose modes will change anyway need not settle first: stop and let the active set switch.
+      converged = true;
+      early = true;
+      break;
+    }
     if (!hasPower) {
       converged = true;
       break;
@@ -551,7 +615,7 @@ function iterate(
     });
     return { ok: false, v, current, iterations, residual: worst, issues };
   }
-  return { ok: true, v, current, iterations, residual: worst, issues };
+  return { ok: true, v, current, iterations, residual: worst, issues, early };
 }
 
 /** Gaussian elimination with partial pivoting for the small bordered system; false when it is singular. */

@@ -69,6 +69,32 @@ export function randomLinearCircuit(seed: number, size: number, opts: { currentL
   return circuit(components, wires.filter((x) => x.from !== x.to));
 }
 
+/**
+ * A random charging circuit: a random linear circuit with one to three alternators (each feeding a random terminal
+ * through an output cable, its case strapped to the reference ground) and constant-power loads across random
+ * terminals, so that alternators land in all three modes and loads may collapse.
+ */
+export function randomChargingCircuit(seed: number, size: number): CircuitDocument {
+  const doc = randomLinearCircuit(seed, size);
+  const r = rng(seed ^ 0x5bd1e995);
+  const terminals = doc.wires.map((w) => w.from);
+  const pick = () => terminals[Math.floor(r() * terminals.length)];
+  const alternators = 1 + Math.floor(r() * 3);
+  for (let i = 0; i < alternators; i++) {
+    // Rated 5 A to 5 kA (log-uniform), so that some alternators hold their node above what others regulate to.
+    doc.components.push({ id: `A${i}`, kind: "alternator", regulatedVoltage: 12.8 + r() * 2.2, ratedCurrent: 5 * 1000 ** r() } as Component);
+    doc.wires.push({ id: `WA${i}`, from: `A${i}.out`, to: i > 0 && r() < 0.5 ? "A0.out" : pick(), resistanceOhm: 0.001 + r() * 0.02 } as Wire);
+    doc.wires.push({ id: `WC${i}`, from: `A${i}.case`, to: "G0.t", resistanceOhm: 0.0002 + r() * 0.002 } as Wire);
+  }
+  const loads = 1 + Math.floor(r() * (size / 10));
+  for (let i = 0; i < loads; i++) {
+    doc.components.push({ id: `P${i}`, kind: "load", mode: "power", value: 1 + r() * 300 } as Component);
+    doc.wires.push({ id: `WP${i}`, from: `P${i}.pos`, to: pick(), resistanceOhm: 0.001 + r() * 0.05 } as Wire);
+    doc.wires.push({ id: `WQ${i}`, from: `P${i}.neg`, to: "G0.t", resistanceOhm: 0.001 + r() * 0.01 } as Wire);
+  }
+  return doc;
+}
+
 /** Largest Kirchhoff current-law mismatch over all terminals of a solved circuit, and the largest current. */
 export function kclMismatch(doc: CircuitDocument, res: SolveResult): { worst: number; largest: number } {
   const sum = new Map<string, number>();

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { TERMINALS, type Component } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
-import { kclMismatch, powerBalance, randomLinearCircuit } from "../../support/circuits";
+import { kclMismatch, powerBalance, randomChargingCircuit, randomLinearCircuit } from "../../support/circuits";
 
 const seeds = fc.integer({ min: 1, max: 2 ** 31 - 1 });
 const sizes = fc.integer({ min: 3, max: 300 });
@@ -51,6 +51,41 @@ describe("solver properties on random connected circuits", () => {
         for (const [id, w] of Object.entries(a.wires)) expect(Math.abs(b.wires[id].current - k * w.current)).toBeLessThanOrEqual(1e-9 * k * imax + 1e-12); // 1e-12 A floor: round-off when nothing flows
       }),
       { numRuns: 40 },
+    );
+  });
+
+  it("with alternators and constant-power loads, every alternator's mode is the one its current and voltage call for", () => {
+    fc.assert(
+      fc.property(seeds, sizes, (seed, n) => {
+        const doc = randomChargingCircuit(seed, n);
+        const r = solveCircuit(doc);
+        expect(r.issues.filter((i) => i.severity === "error")).toEqual([]);
+        const { worst, largest } = kclMismatch(doc, r);
+        expect(worst).toBeLessThanOrEqual(1e-9 * Math.max(largest, 1));
+        const { net, scale } = powerBalance(r);
+        expect(Math.abs(net)).toBeLessThanOrEqual(1e-9 * Math.max(scale, 1));
+        // The alternator model of the circuit document (regulate between 0 and the rated current, else hold the
+        // rated current, never sink current): common practice (no source) for a charging-system model.
+        for (const c of doc.components) {
+          if (c.kind !== "alternator") continue;
+          const res = r.components[c.id];
+          const delivered = -(res.current ?? 0);
+          const volts = res.voltage;
+          if (res.mode === "regulating") {
+            expect(Math.abs(volts - c.regulatedVoltage)).toBeLessThanOrEqual(1e-9);
+            expect(delivered).toBeGreaterThanOrEqual(-1e-6);
+            expect(delivered).toBeLessThanOrEqual(c.ratedCurrent + 1e-6);
+          } else if (res.mode === "current-limit") {
+            expect(Math.abs(delivered - c.ratedCurrent)).toBeLessThanOrEqual(1e-9 * c.ratedCurrent);
+            expect(volts).toBeLessThanOrEqual(c.regulatedVoltage + 1e-6);
+          } else {
+            expect(res.mode).toBe("blocked");
+            expect(delivered).toBe(0);
+            expect(volts).toBeGreaterThanOrEqual(c.regulatedVoltage - 1e-6);
+          }
+        }
+      }),
+      { numRuns: 150 },
     );
   });
 
