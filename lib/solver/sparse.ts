@@ -65,63 +65,124 @@ export function position(p: Pattern, row: number, col: number): number {
 
 /**
  * Minimum-degree ordering on the explicit elimination graph. Harness circuits are nearly trees with a few hubs
- * (ground points, bus bars), so fill is small and the hubs go last.
+ * (ground points, bus bars), so fill is small. Hubs with more than max(32, 2 sqrt(n)) neighbours are left out of the
+ * graph and ordered last (as approximate minimum degree does with dense rows); the rest keep their neighbour lists in
+ * one typed-array pool with room to grow, and degrees in doubly linked buckets.
  */
 export function minimumDegree(p: Pattern): Int32Array {
   const n = p.n;
-  const adj: Set<number>[] = new Array(n);
-  for (let j = 0; j < n; j++) {
-    const s = new Set<number>();
-    for (let q = p.colPtr[j]; q < p.colPtr[j + 1]; q++) if (p.rowIdx[q] !== j) s.add(p.rowIdx[q]);
-    adj[j] = s;
-  }
-  // Bucket queue of degrees with lazy deletion.
-  const degree = new Int32Array(n);
-  const heads: number[][] = [];
-  for (let j = 0; j < n; j++) {
-    degree[j] = adj[j].size;
-    (heads[degree[j]] ??= []).push(j);
-  }
-  const done = new Uint8Array(n);
   const order = new Int32Array(n);
-  let minD = 0;
-  const nb: number[] = [];
-  for (let k = 0; k < n; k++) {
-    let v = -1;
-    while (v < 0) {
-      const bucket = heads[minD];
-      if (!bucket || bucket.length === 0) {
-        minD++;
-        continue;
-      }
-      const c = bucket.pop() as number;
-      if (!done[c] && degree[c] === minD) v = c;
+  if (n === 0) return order;
+  const denseAbove = Math.max(32, Math.floor(2 * Math.sqrt(n)));
+  const dense = new Uint8Array(n);
+  let denseCount = 0;
+  for (let j = 0; j < n; j++) {
+    if (p.colPtr[j + 1] - p.colPtr[j] - 1 > denseAbove) {
+      dense[j] = 1;
+      denseCount++;
     }
-    done[v] = 1;
+  }
+  // Neighbour lists: node v's are pool[start[v] .. start[v] + len[v]), with cap[v] slots.
+  const start = new Int32Array(n);
+  const len = new Int32Array(n);
+  const cap = new Int32Array(n);
+  let used = 0;
+  for (let j = 0; j < n; j++) {
+    start[j] = used;
+    cap[j] = p.colPtr[j + 1] - p.colPtr[j] + 4;
+    used += cap[j];
+  }
+  let pool = new Int32Array(used * 2);
+  for (let j = 0; j < n; j++) {
+    if (dense[j]) continue;
+    let w = start[j];
+    for (let q = p.colPtr[j]; q < p.colPtr[j + 1]; q++) {
+      const i = p.rowIdx[q];
+      if (i !== j && !dense[i]) pool[w++] = i;
+    }
+    len[j] = w - start[j];
+  }
+  const append = (v: number, u: number) => {
+    if (len[v] === cap[v]) {
+      const c = 2 * cap[v] + 4;
+      if (used + c > pool.length) {
+        const bigger = new Int32Array(2 * (used + c));
+        bigger.set(pool.subarray(0, used));
+        pool = bigger;
+      }
+      pool.copyWithin(used, start[v], start[v] + len[v]);
+      start[v] = used;
+      cap[v] = c;
+      used += c;
+    }
+    pool[start[v] + len[v]++] = u;
+  };
+  // Degree buckets as doubly linked lists.
+  const head = new Int32Array(n).fill(-1);
+  const next = new Int32Array(n);
+  const prev = new Int32Array(n);
+  const link = (v: number) => {
+    const d = len[v];
+    next[v] = head[d];
+    prev[v] = -1;
+    if (head[d] >= 0) prev[head[d]] = v;
+    head[d] = v;
+  };
+  const unlink = (v: number) => {
+    if (prev[v] >= 0) next[prev[v]] = next[v];
+    else head[len[v]] = next[v];
+    if (next[v] >= 0) prev[next[v]] = prev[v];
+  };
+  for (let j = n - 1; j >= 0; j--) if (!dense[j]) link(j);
+  const mark = new Int32Array(n);
+  let stamp = 0;
+  const nb = new Int32Array(n);
+  let minD = 0;
+  const sparseCount = n - denseCount;
+  for (let k = 0; k < sparseCount; k++) {
+    while (head[minD] < 0) minD++;
+    const v = head[minD];
+    unlink(v);
     order[k] = v;
-    nb.length = 0;
-    for (const u of adj[v]) nb.push(u);
-    for (let i = 0; i < nb.length; i++) adj[nb[i]].delete(v);
-    for (let i = 0; i < nb.length; i++) {
-      const su = adj[nb[i]];
-      for (let j = i + 1; j < nb.length; j++) {
-        if (!su.has(nb[j])) {
-          su.add(nb[j]);
-          adj[nb[j]].add(nb[i]);
+    const m = len[v];
+    const sv = start[v];
+    for (let i = 0; i < m; i++) nb[i] = pool[sv + i];
+    len[v] = 0;
+    // Take v out of its neighbours' lists (their degrees change: out of their buckets first).
+    for (let i = 0; i < m; i++) {
+      const u = nb[i];
+      unlink(u);
+      const su = start[u];
+      const e = su + len[u];
+      for (let q = su; q < e; q++) {
+        if (pool[q] === v) {
+          pool[q] = pool[e - 1];
+          len[u]--;
+          break;
         }
       }
     }
-    for (let i = 0; i < nb.length; i++) {
+    // The neighbours become a clique (the fill of eliminating v).
+    for (let i = 0; i < m; i++) {
       const u = nb[i];
-      const d = adj[u].size;
-      if (d !== degree[u]) {
-        degree[u] = d;
-        (heads[d] ??= []).push(u);
-        if (d < minD) minD = d;
-      } else if (d < minD) minD = d;
+      stamp++;
+      mark[u] = stamp;
+      const su = start[u];
+      const e = su + len[u];
+      for (let q = su; q < e; q++) mark[pool[q]] = stamp;
+      for (let j = 0; j < m; j++) if (mark[nb[j]] !== stamp) append(u, nb[j]);
     }
-    adj[v].clear();
+    for (let i = 0; i < m; i++) {
+      const u = nb[i];
+      link(u);
+      if (len[u] < minD) minD = len[u];
+    }
   }
+  // The hubs last, fewest neighbours first.
+  const hubs: number[] = [];
+  for (let j = 0; j < n; j++) if (dense[j]) hubs.push(j);
+  hubs.sort((x, y) => p.colPtr[x + 1] - p.colPtr[x] - (p.colPtr[y + 1] - p.colPtr[y]));
+  for (let i = 0; i < hubs.length; i++) order[sparseCount + i] = hubs[i];
   return order;
 }
 
