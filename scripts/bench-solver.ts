@@ -25,17 +25,25 @@ function time<T>(fn: () => T, runs: number): { ms: number; last: T } {
 }
 
 console.log("Solver on synthetic harnesses (median of runs; warm)");
-console.log("components  wires  unknowns  ms (median)  ms (best)  newton  active-set  status  peak RSS");
+console.log("(same: the one document solved again, as the workspace does; fresh: a new copy parsed from JSON before each");
+console.log(" run, untimed, as the API receives it)");
+console.log("components  wires  unknowns  ms (median)  ms (best)  fresh ms (median)  newton  active-set  status  peak RSS");
 for (const n of [100, 1_000, 10_000, 100_000]) {
   const doc = harnessCircuit(n);
+  const json = JSON.stringify(doc);
   const runs = n >= 100_000 ? 5 : n >= 10_000 ? 11 : 31;
   for (let i = 0; i < 3; i++) solveCircuit(doc); // warm up the JIT
   const times: number[] = [];
+  const fresh: number[] = [];
   let res = solveCircuit(doc);
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
     res = solveCircuit(doc);
     times.push(performance.now() - t0);
+    const copy = JSON.parse(json) as typeof doc;
+    const t1 = performance.now();
+    solveCircuit(copy);
+    fresh.push(performance.now() - t1);
   }
   const unknowns = Object.keys(res.terminals).length;
   console.log(
@@ -45,6 +53,7 @@ for (const n of [100, 1_000, 10_000, 100_000]) {
       String(unknowns).padStart(9),
       median(times).toFixed(2).padStart(12),
       Math.min(...times).toFixed(2).padStart(10),
+      median(fresh).toFixed(2).padStart(18),
       String(res.iterations).padStart(7),
       String(res.activeSetPasses).padStart(11),
       res.status.padStart(7),
