@@ -3,6 +3,7 @@
 import { Handle, Position, type Node, type NodeProps, type NodeTypes } from "@xyflow/react";
 import { TERMINALS, type Component, type ComponentKind } from "@/lib/circuit";
 import type { Band } from "@/lib/workspace/analysis";
+import { usePartView } from "./canvas-view";
 import { Symbol } from "./symbols";
 
 /** What a part's node carries: the part itself and, when solved, its terminals' voltages and its state. */
@@ -15,7 +16,8 @@ export type PartData = {
   off?: boolean;
   note?: string;
 };
-export type PartNode = Node<PartData, ComponentKind>;
+/** The canvas's node: only its kind and place; what it shows comes from the canvas view store (canvas-view.tsx). */
+export type PartNode = Node<Record<string, never>, ComponentKind>;
 
 const ROLE: Record<string, string> = { pos: "+", neg: "−", out: "B+", case: "case", in: "in", a: "a", b: "b", t: "" };
 
@@ -24,6 +26,9 @@ const bandRing: Record<Band, string> = {
   caution: "border-caution ring-2 ring-caution/40",
   over: "border-over ring-2 ring-over/50 border-dashed",
 };
+
+/** Figures too small to read when the canvas is zoomed out (see ZoomDetail in workspace.tsx) leave the layout. */
+const FAR_HIDDEN = "group-data-[far=true]/canvas:hidden";
 
 function volts(v: number | undefined) {
   return v === undefined ? null : `${v.toFixed(Math.abs(v) < 10 ? 3 : 2)} V`;
@@ -37,7 +42,13 @@ export function samePartView(a: PartData, b: PartData): boolean {
   return keys.length === Object.keys(a.volts).length && keys.every((k) => volts(a.volts![k]) === volts(b.volts![k]));
 }
 
-function PartView({ data, selected, type }: NodeProps<PartNode>) {
+function PartView({ id, selected, type }: NodeProps<PartNode>) {
+  const data = usePartView(id);
+  if (!data) return null;
+  return <PartDrawing data={data} selected={selected} type={type} />;
+}
+
+function PartDrawing({ data, selected, type }: { data: PartData; selected: boolean; type: string }) {
   const c = data.component;
   const kind = type as ComponentKind;
   const oneTerminal = kind === "junction" || kind === "ground";
@@ -59,7 +70,7 @@ function PartView({ data, selected, type }: NodeProps<PartNode>) {
       {oneTerminal ? (
         <>
           <Handle id="t" type="source" position={Position.Top} className="!h-3 !w-3 !border-2 !border-white !bg-copper-600" aria-label={`${c.id} terminal`} />
-          {data.volts?.t !== undefined ? <div className="mt-0.5 font-mono text-[10px] text-copper-700">{volts(data.volts.t)}</div> : null}
+          {data.volts?.t !== undefined ? <div className={`mt-0.5 font-mono text-[10px] text-copper-700 ${FAR_HIDDEN}`}>{volts(data.volts.t)}</div> : null}
         </>
       ) : (
         <>
@@ -68,7 +79,7 @@ function PartView({ data, selected, type }: NodeProps<PartNode>) {
           <span className="absolute -left-1 top-1/2 -translate-x-full -translate-y-5 text-[10px] font-semibold text-graphite-700">{ROLE[first]}</span>
           <span className="absolute -right-1 top-1/2 -translate-y-5 translate-x-full text-[10px] font-semibold text-graphite-700">{ROLE[second]}</span>
           {data.volts ? (
-            <div className="mt-0.5 flex justify-between font-mono text-[10px] text-copper-700">
+            <div className={`mt-0.5 flex justify-between font-mono text-[10px] text-copper-700 ${FAR_HIDDEN}`}>
               <span>{volts(data.volts[first])}</span>
               <span>{volts(data.volts[second])}</span>
             </div>

@@ -1,7 +1,7 @@
 "use client";
 
 import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
-import { useState } from "react";
+import { memo, useState } from "react";
 import type { WireFigures } from "@/lib/workspace/analysis";
 
 const col = createColumnHelper<WireFigures>();
@@ -43,11 +43,10 @@ const columns = [
 ];
 
 /** Every cable and connection with its figures, sortable; a row click picks it on the canvas. */
-export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (id: string) => void }) {
+export const ResultsTable = memo(function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (id: string) => void }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: "drop", desc: true }]);
   // A large circuit lists its worst rows first (by the chosen sort); the rest on request, so each edit stays quick.
   const [all, setAll] = useState(false);
-  // eslint-disable-next-line react-hooks/incompatible-library -- rebuilt each render; nothing below is memoised
   const table = useReactTable({ data: rows, columns, meta: { onPick }, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
   return (
     <div className="mt-2 max-h-80 overflow-auto rounded border border-graphite-100 bg-white">
@@ -85,4 +84,4 @@ export function ResultsTable({ rows, onPick }: { rows: WireFigures[]; onPick: (i
       {rows.length === 0 ? <p className="px-3 py-3 text-sm text-graphite-500">No cables yet: join two terminals to draw one.</p> : null}
     </div>
   );
-}
+});

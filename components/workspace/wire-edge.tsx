@@ -3,9 +3,11 @@
 import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, useStore, type Edge, type EdgeProps, type EdgeTypes } from "@xyflow/react";
 import type { Wire } from "@/lib/circuit";
 import type { Band, Overlay, WireFigures } from "@/lib/workspace/analysis";
+import { useWireView } from "./canvas-view";
 
 export type WireData = { wire: Wire; figures?: WireFigures; overlay: Overlay; conductor: string };
-export type WireEdgeType = Edge<WireData, "wire">;
+/** The canvas's edge: only its ends; what it shows comes from the canvas view store (canvas-view.tsx). */
+export type WireEdgeType = Edge<Record<string, never>, "wire">;
 
 /** Below this zoom the cable labels are left out. */
 export const LABEL_MIN_ZOOM = 0.5;
@@ -24,9 +26,15 @@ export function wireView(f: WireFigures | undefined, overlay: Overlay): string {
   return f ? `${f.band[overlay]}|${f.over.length > 0}|${figuresText(f, overlay)}` : "-";
 }
 
+/** Whether two cable views draw the same. */
+export function sameWireView(a: WireData, b: WireData): boolean {
+  return a.wire === b.wire && a.overlay === b.overlay && a.conductor === b.conductor && wireView(a.figures, a.overlay) === wireView(b.figures, b.overlay);
+}
+
 /** A cable: its size and length on the line, and once solved its current and drop, coloured by the chosen overlay. */
 function WireEdge(props: EdgeProps<WireEdgeType>) {
-  const { data, selected } = props;
+  const { selected } = props;
+  const data = useWireView(props.id);
   const [path, x, y] = getSmoothStepPath({ ...props, borderRadius: 6 });
   const f = data?.figures;
   const band = f ? f.band[data.overlay] : undefined;

@@ -10,12 +10,13 @@ import {
   ReactFlow,
   ReactFlowProvider,
   useReactFlow,
+  useStore,
   type Connection,
   type EdgeChange,
   type NodeChange,
 } from "@xyflow/react";
 import Link from "next/link";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { useCallback, useDeferredValue, useEffect, useLayoutEffect, useMemo, useRef, useState } from "react";
 import { ConflictDialog } from "@/components/circuits/conflict-dialog";
 import { IssueList } from "@/components/jobs/job-detail";
 import { COMPONENT_KINDS, stateIdsOf, type CircuitDocument, type Component, type ComponentKind, type Wire } from "@/lib/circuit";
@@ -27,13 +28,14 @@ import { addComponent, addWire, copyItems, freeSpot, KIND_NAMES, moveComponents,
 import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
 import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
-import { nodeTypes, samePartView, type PartNode } from "./nodes";
+import { CanvasViewContext, ViewStore, type CanvasView } from "./canvas-view";
+import { nodeTypes, samePartView, type PartData, type PartNode } from "./nodes";
 import { DEFAULT_PREFS, sizeShown, type UnitPrefs } from "@/lib/workspace/prefs";
 import { PropertiesPanel } from "./properties-panel";
 import { ReadingMarkers } from "./reading-markers";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
-import { BAND_COLOUR, edgeTypes, wireView, type WireEdgeType } from "./wire-edge";
+import { BAND_COLOUR, edgeTypes, LABEL_MIN_ZOOM, sameWireView, type WireData, type WireEdgeType } from "./wire-edge";
 
 const HISTORY_LIMIT = 100;
 const SAVE_DELAY_MS = 1200;
@@ -44,10 +46,35 @@ const SAVE_DELAY_MS = 1200;
  */
 const WORKER_FROM_COMPONENTS = 1500;
 
-/** The last edge drawn for each cable object, with what it showed (see edges below). */
-const edgeCache = new WeakMap<Wire, { shown: string; edge: WireEdgeType }>();
+// The canvas's settings as constants: a new array or object on every render would reach the canvas as a change.
+const DELETE_KEYS = ["Delete", "Backspace"];
+const MULTI_SELECT_KEYS = ["Shift", "Meta", "Control"];
+const SNAP_GRID: [number, number] = [20, 20];
+const PRO_OPTIONS = { hideAttribution: true };
+const MINIMAP_STYLE = { width: 150, height: 100 };
+
+/** The last edge made for each cable object, and whether it was selected (see edges below). */
+const edgeCache = new WeakMap<Wire, { selected: boolean; edge: WireEdgeType }>();
+
+/** The list itself when every item is the same object as before: the canvas then has nothing to redo. */
+function keepIfSame<T>(prev: T[], next: T[]): T[] {
+  return prev.length === next.length && next.every((x, i) => x === prev[i]) ? prev : next;
+}
 
 type SaveState = { kind: "saved"; version: number } | { kind: "dirty" } | { kind: "saving" } | { kind: "error"; message: string };
+
+/**
+ * Marks the canvas as zoomed out (data-far), where the parts' figures would be too small to read: they are then left
+ * out of the layout (as the cables' labels are), so a re-solve of a large drawing seen whole does not re-lay out
+ * hundreds of unreadable figures. Set on the element directly: crossing the threshold re-renders nothing.
+ */
+function ZoomDetail({ target }: { target: React.RefObject<HTMLDivElement | null> }) {
+  const far = useStore((s) => s.transform[2] < LABEL_MIN_ZOOM);
+  useEffect(() => {
+    target.current?.setAttribute("data-far", String(far));
+  }, [far, target]);
+  return null;
+}
 
 function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
   const [prefs, setPrefs] = useState<UnitPrefs>(DEFAULT_PREFS);
@@ -127,13 +154,21 @@ function Editor(props: {
   const savedDoc = useRef(props.initial);
   const [savedShown, setSavedShown] = useState(props.initial);
 
+  // The document as of the last commit or render, for the canvas's handlers: they read it here instead of closing
+  // over it, so they keep their identity across edits and the canvas library is not told of new handlers each time.
+  const docRef = useRef(doc);
+  useLayoutEffect(() => {
+    docRef.current = doc;
+  }, [doc]);
   const commit = useCallback(
     (next: CircuitDocument) => {
       if (!props.canEdit) return;
-      setHistory((h) => ({ past: [...h.past.slice(-HISTORY_LIMIT + 1), doc], future: [] }));
+      const prev = docRef.current;
+      setHistory((h) => ({ past: [...h.past.slice(-HISTORY_LIMIT + 1), prev], future: [] }));
       setDoc(next);
+      docRef.current = next;
     },
-    [doc, props.canEdit],
+    [props.canEdit],
   );
   const undo = useCallback(() => {
     const prev = history.past[history.past.length - 1];
@@ -214,10 +249,26 @@ function Editor(props: {
   const readings = useReadings(props.circuitId ?? "", Boolean(props.circuitId));
   const [showReadings, setShowReadings] = useState(Boolean(props.showReadings));
   const figureById = useMemo(() => new Map(figures.map((f) => [f.id, f])), [figures]);
+  // The table follows a moment later (a deferred render after the frame that shows the canvas): the canvas's overlay
+  // is what an edit is watched on, and sorting and drawing the table's rows would delay it.
+  const tableRows = useDeferredValue(figures);
 
-  // ---- canvas nodes follow the document; xyflow's own measurements and selection are kept. A node whose part and
-  // shown figures did not change keeps its object, so the canvas redraws only what an edit changed.
-  useEffect(() => {
+  // ---- what each part and cable shows lives in the canvas view stores (see canvas-view.tsx); the canvas's own node
+  // and edge lists carry only kinds, places, connections and selection, so a re-solve leaves them alone.
+  const [view] = useState<CanvasView>(() => ({
+    parts: new ViewStore<PartData>((a, b) => a.component === b.component && samePartView(a, b)),
+    wires: new ViewStore<WireData>(sameWireView),
+  }));
+  const conductor = useCallback(
+    (w: Wire) => {
+      if (w.resistanceOhm !== undefined) return w.resistanceOhm === 0 ? "link" : `${+(w.resistanceOhm * 1000).toPrecision(3)} mΩ`;
+      const len = prefs.length === "ft" ? `${fromSI(w.lengthM ?? 0, "length", "ft").toFixed(1)} ft` : `${(w.lengthM ?? 0).toFixed(2)} m`;
+      return `${sizeShown(w.size ?? "", prefs)} · ${len}`;
+    },
+    [prefs],
+  );
+  // Before the browser paints: the edit and its figures appear in the same frame.
+  useLayoutEffect(() => {
     const voltsByPart = new Map<string, Record<string, number>>();
     if (result) {
       for (const [k, v] of Object.entries(result.terminals)) {
@@ -228,26 +279,40 @@ function Editor(props: {
         rec[k.slice(dot + 1)] = v;
       }
     }
+    const parts = new Map<string, PartData>();
+    for (const c of doc.components) {
+      const comp = result?.components[c.id];
+      const f = c.kind === "joint" ? figureById.get(c.id) : undefined;
+      parts.set(c.id, {
+        component: c,
+        volts: result ? (voltsByPart.get(c.id) ?? {}) : undefined,
+        band: f?.band.drop,
+        off: comp?.mode === "off" || comp?.mode === "open",
+        note: comp?.mode ? `mode: ${comp.mode}` : undefined,
+      });
+    }
+    const wires = new Map<string, WireData>();
+    for (const w of doc.wires) wires.set(w.id, { wire: w, figures: figureById.get(w.id), overlay, conductor: conductor(w) });
+    view.parts.replace(parts);
+    view.wires.replace(wires);
+  }, [doc, result, figureById, overlay, conductor, view]);
+
+  // Canvas nodes follow the document's parts; xyflow's own measurements and selection are kept, and a part that did
+  // not move keeps its node object (and the list itself is kept when nothing moved).
+  useEffect(() => {
     // eslint-disable-next-line react-hooks/set-state-in-effect -- nodes are derived from the document but keep xyflow's measurements
     setNodes((prev) => {
       const old = new Map(prev.map((n) => [n.id, n]));
-      return doc.components.map((c) => {
+      const next = doc.components.map((c) => {
         const o = old.get(c.id);
-        const comp = result?.components[c.id];
-        const volts = result ? (voltsByPart.get(c.id) ?? {}) : undefined;
-        const f = c.kind === "joint" ? figureById.get(c.id) : undefined;
-        const data: PartNode["data"] = { component: c, volts, band: f?.band.drop, off: comp?.mode === "off" || comp?.mode === "open", note: comp?.mode ? `mode: ${comp.mode}` : undefined };
-        if (o && !o.dragging && o.data.component === c && o.position === c.position && samePartView(o.data, data)) return o;
-        return {
-          ...(o ?? {}),
-          id: c.id,
-          type: c.kind,
-          position: o?.dragging ? o.position : (c.position ?? { x: 0, y: 0 }),
-          data,
-        } as PartNode;
+        // By value: an edited part is a new object whose position may be a copy of the same place.
+        const at = c.position ?? { x: 0, y: 0 };
+        if (o && (o.dragging || (o.position.x === at.x && o.position.y === at.y && o.type === c.kind))) return o;
+        return { ...(o ?? {}), id: c.id, type: c.kind, position: at, data: {} } as PartNode;
       });
+      return keepIfSame(prev, next);
     });
-  }, [doc, result, figureById]);
+  }, [doc]);
 
   // Fit the drawing once its parts have been measured.
   const fitted = useRef(false);
@@ -258,31 +323,20 @@ function Editor(props: {
     setTimeout(() => void flow.fitView({ padding: 0.1 }), 100);
   }, [nodes, flow, result]);
 
-  const conductor = useCallback(
-    (w: Wire) => {
-      if (w.resistanceOhm !== undefined) return w.resistanceOhm === 0 ? "link" : `${+(w.resistanceOhm * 1000).toPrecision(3)} mΩ`;
-      const len = prefs.length === "ft" ? `${fromSI(w.lengthM ?? 0, "length", "ft").toFixed(1)} ft` : `${(w.lengthM ?? 0).toFixed(2)} m`;
-      return `${sizeShown(w.size ?? "", prefs)} · ${len}`;
-    },
-    [prefs],
-  );
+  // Made again only when the cables or the selection change (an edit to a part keeps doc.wires).
   const edges: WireEdgeType[] = useMemo(
     () =>
       doc.wires.map((w) => {
-        const figures = figureById.get(w.id);
         const selected = selectedEdges.includes(w.id);
-        const text = conductor(w);
-        // The same cable drawn the same way keeps its edge object, so only changed cables are redrawn.
-        const shown = `${selected}|${overlay}|${text}|${wireView(figures, overlay)}`;
         const kept = edgeCache.get(w);
-        if (kept?.shown === shown) return kept.edge;
+        if (kept?.selected === selected) return kept.edge;
         const [s, sh] = w.from.split(".");
         const [t, th] = w.to.split(".");
-        const edge: WireEdgeType = { id: w.id, type: "wire", source: s, sourceHandle: sh, target: t, targetHandle: th, selected, data: { wire: w, figures, overlay, conductor: text } };
-        edgeCache.set(w, { shown, edge });
+        const edge: WireEdgeType = { id: w.id, type: "wire", source: s, sourceHandle: sh, target: t, targetHandle: th, selected, data: {} };
+        edgeCache.set(w, { selected, edge });
         return edge;
       }),
-    [doc.wires, selectedEdges, figureById, overlay, conductor],
+    [doc.wires, selectedEdges],
   );
 
   const selectedNodes = nodes.filter((n) => n.selected).map((n) => n.id);
@@ -290,19 +344,19 @@ function Editor(props: {
     (changes: NodeChange<PartNode>[]) => {
       const removed = changes.filter((c) => c.type === "remove").map((c) => c.id);
       if (removed.length) {
-        commit(removeItems(doc, removed, []));
+        commit(removeItems(docRef.current, removed, []));
         return;
       }
       setNodes((ns) => applyNodeChanges(changes, ns));
       if (changes.some((c) => c.type === "select" && c.selected)) setSelectedEdges([]);
     },
-    [commit, doc],
+    [commit],
   );
   const onEdgesChange = useCallback(
     (changes: EdgeChange<WireEdgeType>[]) => {
       const removed = changes.filter((c) => c.type === "remove").map((c) => c.id);
       if (removed.length) {
-        commit(removeItems(doc, [], removed));
+        commit(removeItems(docRef.current, [], removed));
         setSelectedEdges([]);
         return;
       }
@@ -311,29 +365,31 @@ function Editor(props: {
         setSelectedEdges((s) => (c.selected ? [...new Set([...s, c.id])] : s.filter((x) => x !== c.id)));
       }
     },
-    [commit, doc],
+    [commit],
   );
   const onConnect = useCallback(
     (c: Connection) => {
       if (!c.sourceHandle || !c.targetHandle) return;
-      const r = addWire(doc, `${c.source}.${c.sourceHandle}`, `${c.target}.${c.targetHandle}`);
+      const r = addWire(docRef.current, `${c.source}.${c.sourceHandle}`, `${c.target}.${c.targetHandle}`);
       if (r.refused) setNotice(r.refused);
       else commit(r.doc);
     },
-    [commit, doc],
+    [commit],
   );
   const onDragStop = useCallback(
     (_e: unknown, _n: PartNode, dragged: PartNode[]) => {
-      commit(moveComponents(doc, new Map(dragged.map((n) => [n.id, n.position]))));
+      commit(moveComponents(docRef.current, new Map(dragged.map((n) => [n.id, n.position]))));
     },
-    [commit, doc],
+    [commit],
   );
 
   const select = useCallback((ids: string[]) => {
     const wireIds = new Set(doc.wires.map((w) => w.id));
     setSelectedEdges(ids.filter((i) => wireIds.has(i)));
-    setNodes((ns) => ns.map((n) => ({ ...n, selected: ids.includes(n.id) })));
+    // Only the nodes whose selection changes are new objects: the canvas redraws those alone.
+    setNodes((ns) => ns.map((n) => (Boolean(n.selected) === ids.includes(n.id) ? n : { ...n, selected: ids.includes(n.id) })));
   }, [doc.wires]);
+  const pickRow = useCallback((id: string) => select([id]), [select]);
 
   // A part asked for in the address (a test plan's suspect): chosen and centred once the canvas has its nodes.
   const focused = useRef(false);
@@ -537,7 +593,7 @@ function Editor(props: {
 
         <div
           ref={wrapper}
-          className="order-1 h-[60dvh] min-h-[380px] border-b border-graphite-100 bg-white lg:order-2 lg:h-auto lg:min-h-[600px]"
+          className="group/canvas order-1 h-[60dvh] min-h-[380px] border-b border-graphite-100 bg-white lg:order-2 lg:h-auto lg:min-h-[600px]"
           onDragOver={(e) => {
             if (e.dataTransfer.types.includes("application/x-ampwright-part")) e.preventDefault();
           }}
@@ -548,7 +604,9 @@ function Editor(props: {
             addPart(kind, flow.screenToFlowPosition({ x: e.clientX, y: e.clientY }));
           }}
           data-testid="ws-canvas"
+          data-far="false"
         >
+          <CanvasViewContext.Provider value={view}>
           <ReactFlow
             nodes={nodes}
             edges={edges}
@@ -561,19 +619,21 @@ function Editor(props: {
             connectionMode={ConnectionMode.Loose}
             nodesDraggable={props.canEdit}
             nodesConnectable={props.canEdit}
-            deleteKeyCode={props.canEdit ? ["Delete", "Backspace"] : null}
-            multiSelectionKeyCode={["Shift", "Meta", "Control"]}
+            deleteKeyCode={props.canEdit ? DELETE_KEYS : null}
+            multiSelectionKeyCode={MULTI_SELECT_KEYS}
             snapToGrid
-            snapGrid={[20, 20]}
+            snapGrid={SNAP_GRID}
             fitView
             minZoom={0.1}
-            proOptions={{ hideAttribution: true }}
+            proOptions={PRO_OPTIONS}
           >
+            <ZoomDetail target={wrapper} />
             <Background gap={20} size={1} color="#e4e7ea" />
             <Controls showInteractive={false} />
             {showReadings && readings.data?.length ? <ReadingMarkers doc={doc} readings={readings.data} stateId={solveState} nodes={nodes} /> : null}
-            <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={{ width: 150, height: 100 }} nodeStrokeWidth={2} />
+            <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={MINIMAP_STYLE} nodeStrokeWidth={2} />
           </ReactFlow>
+          </CanvasViewContext.Provider>
         </div>
 
         <aside className="order-3 space-y-4 bg-paper-raised p-3 lg:border-l" aria-label="Settings and problems">
@@ -719,7 +779,7 @@ function Editor(props: {
         <h2 className="text-sm font-semibold">
           Cables and connections, {activeState?.name ?? "base"}: {result ? (result.status === "ok" ? "solved" : "no trustworthy solution") : "solving..."}
         </h2>
-        <ResultsTable rows={figures} onPick={(id) => select([id])} />
+        <ResultsTable rows={tableRows} onPick={pickRow} />
       </section>
       {saver.error && !staleVersionOf(saver.error) ? <IssueList error={saver.error} /> : null}
       {addingLoad ? (
