@@ -2,8 +2,10 @@
  * The browser half of `npm run bench:ui` (scripts/bench-api.sh starts the production server): in headless
  * Chromium, (1) the sizing page's time from a keystroke to the next frame that shows the new answer, for the AWG
  * and the metric series; (2) the workspace on a 300-component circuit: time from an edit (Enter in the properties
- * panel) to the next frame showing the re-solved overlay, and the frame rate while panning. Prints figures; it is
- * not a test.
+ * panel) to the next frame showing the re-solved overlay, once with the whole drawing fitted (zoomed out so far that
+ * the parts' figures are left out of the layout; the edit is watched on the farthest load's figures, which still
+ * change in the page) and once at a working zoom around the edited joint (its figures drawn and watched), and the
+ * frame rate while panning. Prints figures; it is not a test.
  */
 import { writeFileSync } from "node:fs";
 import type { Page } from "playwright-core";
@@ -117,10 +119,39 @@ async function workspace(page: Page) {
     const { profile: data } = await profile.send("Profiler.stop");
     writeFileSync(process.env.BENCH_PROFILE!, JSON.stringify(data));
   }
-  console.log(`Workspace, ${doc.components.length} components and ${doc.wires.length} cables: edit to the frame with the new overlay: ${stats(laps)}`);
+  const zoomOf = () => page.evaluate("Number(/scale\\(([\\d.]+)\\)/.exec(document.querySelector('.react-flow__viewport').style.transform)[1])") as Promise<number>;
+  console.log(`Workspace, ${doc.components.length} components and ${doc.wires.length} cables, whole drawing fitted (zoom ${(await zoomOf()).toFixed(2)}): edit to the frame with the new overlay: ${stats(laps)}`);
 
-  // Panning: drag the empty canvas for two seconds and count the frames drawn meanwhile.
+  await pan(page, "whole drawing fitted");
+
+  // At a working zoom: the workspace opened on the joint (as a test plan's link opens it), its figures readable.
+  await page.goto(`${base}/circuits/${circuit.circuit.id}/workspace?focus=J1`, { waitUntil: "networkidle" });
+  await page.getByTestId("part-J1").waitFor();
+  await page.waitForFunction(() => document.querySelector('[data-testid="ws-canvas"]')?.getAttribute("data-far") === "false");
+  await page.waitForTimeout(600); // the focus animation
+  const near: number[] = [];
+  for (let i = 0; i < ROUNDS; i++) {
+    await field.fill(i % 2 === 0 ? "60 mOhm" : "0.5 mOhm");
+    await armKeyToFrame(page, "Enter", '[data-testid="part-J1"]');
+    await field.press("Enter");
+    near.push(await lap(page));
+  }
+  console.log(`Workspace, same circuit at a working zoom (${(await zoomOf()).toFixed(2)}) around J1, its figures drawn: edit to the frame with the new overlay: ${stats(near)}`);
+
+  await pan(page, "working zoom, figures drawn");
+}
+
+/** Panning: drag an empty spot of the canvas for two seconds and count the frames drawn meanwhile. */
+async function pan(page: Page, what: string) {
   const box = (await page.getByTestId("ws-canvas").boundingBox())!;
+  // An empty spot (the pane itself, not a part or a cable), so the drag pans instead of moving a part.
+  const spot = (await page.evaluate(`(() => {
+    for (let y = ${Math.round(box.y + 20)}; y < ${Math.round(box.y + box.height - 20)}; y += 15)
+      for (let x = ${Math.round(box.x + 20)}; x < ${Math.round(box.x + box.width - 180)}; x += 15)
+        if (document.elementFromPoint(x, y)?.classList.contains("react-flow__pane")) return [x, y];
+    return null;
+  })()`)) as [number, number] | null;
+  if (!spot) throw new Error("no empty spot on the canvas to pan from");
   await page.evaluate(`
     window.__frames = 0;
     window.__counting = true;
@@ -128,8 +159,7 @@ async function workspace(page: Page) {
     requestAnimationFrame(tick);
   `);
   const start = Date.now();
-  const cx = box.x + box.width / 2;
-  const cy = box.y + 30;
+  const [cx, cy] = spot;
   await page.mouse.move(cx, cy);
   await page.mouse.down();
   let step = 0;
@@ -140,7 +170,7 @@ async function workspace(page: Page) {
   await page.mouse.up();
   const seconds = (Date.now() - start) / 1000;
   const frames = (await page.evaluate("window.__counting = false, window.__frames")) as number;
-  console.log(`Workspace panning: ${(frames / seconds).toFixed(1)} frames per second over ${seconds.toFixed(1)} s (${step} pointer moves)`);
+  console.log(`Workspace panning, ${what}: ${(frames / seconds).toFixed(1)} frames per second over ${seconds.toFixed(1)} s (${step} pointer moves)`);
 }
 
 async function main() {

@@ -57,7 +57,9 @@ function PartDrawing({ data, selected, type }: { data: PartData; selected: boole
   return (
     <div
       className={`relative rounded-md border bg-white px-2 pb-1 pt-1 text-center shadow-sm ${ring} ${selected ? "outline outline-2 outline-offset-2 outline-copper-500" : ""} ${data.off ? "opacity-60" : ""}`}
-      style={{ width: oneTerminal ? 96 : 132 }}
+      // Off screen, a part's drawing is skipped by layout and paint (content-visibility): an edit re-solves every
+      // figure, and only the parts in view need laying out again.
+      style={{ width: oneTerminal ? 96 : 132, contentVisibility: "auto", containIntrinsicSize: `auto ${oneTerminal ? 96 : 132}px auto 88px` }}
       data-testid={`part-${c.id}`}
       title={data.note}
     >

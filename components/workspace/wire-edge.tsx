@@ -55,7 +55,7 @@ function WireEdge(props: EdgeProps<WireEdgeType>) {
         <EdgeLabelRenderer>
           <div
             className={`nodrag nopan pointer-events-auto absolute rounded border bg-white/95 px-1.5 py-0.5 text-center font-mono text-[10px] leading-tight shadow-sm ${selected ? "border-copper-500" : "border-graphite-100"}`}
-            style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)` }}
+            style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)`, contentVisibility: "auto", containIntrinsicSize: "auto 120px auto 30px" }}
             data-testid={`wire-${props.id}`}
           >
             <div className="text-graphite-700">

@@ -315,13 +315,16 @@ function Editor(props: {
   }, [doc]);
 
   // Fit the drawing once its parts have been measured.
+  // A part asked for in the address (a test plan's suspect) is fitted instead, with the parts its cables join.
   const fitted = useRef(false);
   useEffect(() => {
     if (fitted.current || !nodes.length || !result || !nodes.every((n) => n.measured)) return;
     fitted.current = true;
+    const focus = props.focus?.length ? new Set(props.focus) : null;
+    if (focus) for (const w of doc.wires) if (focus.has(w.id)) [w.from, w.to].forEach((t) => focus.add(t.slice(0, t.lastIndexOf("."))));
     // After the panels have taken their size, so the drawing fits the canvas it ends up in.
-    setTimeout(() => void flow.fitView({ padding: 0.1 }), 100);
-  }, [nodes, flow, result]);
+    setTimeout(() => void (focus ? flow.fitView({ nodes: [...focus].map((id) => ({ id })), maxZoom: 1.2, padding: 0.6, duration: 300 }) : flow.fitView({ padding: 0.1 })), 100);
+  }, [nodes, flow, result, props.focus, doc.wires]);
 
   // Made again only when the cables or the selection change (an edit to a part keeps doc.wires).
   const edges: WireEdgeType[] = useMemo(
@@ -391,16 +394,14 @@ function Editor(props: {
   }, [doc.wires]);
   const pickRow = useCallback((id: string) => select([id]), [select]);
 
-  // A part asked for in the address (a test plan's suspect): chosen and centred once the canvas has its nodes.
+  // A part asked for in the address (a test plan's suspect) is chosen once the canvas has its nodes (and centred once
+  // they are measured, above).
   const focused = useRef(false);
   useEffect(() => {
     if (focused.current || !props.focus?.length || !nodes.length) return;
     focused.current = true;
     select(props.focus);
-    const ids = new Set(props.focus);
-    for (const w of doc.wires) if (ids.has(w.id)) [w.from, w.to].forEach((t) => ids.add(t.slice(0, t.lastIndexOf("."))));
-    setTimeout(() => void flow.fitView({ nodes: [...ids].map((id) => ({ id })), maxZoom: 1.2, padding: 0.6, duration: 300 }), 50);
-  }, [nodes.length, props.focus, select, flow, doc.wires]);
+  }, [nodes.length, props.focus, select]);
 
   const addPart = useCallback(
     (kind: ComponentKind, at?: { x: number; y: number }) => {
@@ -771,6 +772,7 @@ function Editor(props: {
               Limits (common practice): {CANVAS_LIMITS.wireDropPercent} % of {doc.systemVoltage} V on a cable, {CANVAS_LIMITS.jointDropV} V across a connection, the cable&rsquo;s derated
               ampacity (33 CFR 183.425 Table 5).
             </p>
+            <p className="mt-1">Zoomed far out, the drawing keeps its colours and leaves out the figures; zoom in to read each part&rsquo;s volts and each cable&rsquo;s current and drop.</p>
           </section>
         </aside>
       </div>
