@@ -144,11 +144,15 @@ async function workspace(page: Page) {
 /** Panning: drag an empty spot of the canvas for two seconds and count the frames drawn meanwhile. */
 async function pan(page: Page, what: string) {
   const box = (await page.getByTestId("ws-canvas").boundingBox())!;
-  // An empty spot (the pane itself, not a part or a cable), so the drag pans instead of moving a part.
+  // An empty spot (the pane itself, not a part or a cable) nearest the canvas's middle, so the drag pans instead of
+  // moving a part and the pointer stays over the canvas while it swings.
   const spot = (await page.evaluate(`(() => {
-    for (let y = ${Math.round(box.y + 20)}; y < ${Math.round(box.y + box.height - 20)}; y += 15)
-      for (let x = ${Math.round(box.x + 20)}; x < ${Math.round(box.x + box.width - 180)}; x += 15)
+    const cx = ${Math.round(box.x + box.width / 2)}, cy = ${Math.round(box.y + box.height / 2)};
+    for (let r = 0; r < ${Math.round(box.height / 2 - 50)}; r += 10)
+      for (let a = 0; a < 360; a += 15) {
+        const x = Math.round(cx + r * Math.cos(a * Math.PI / 180)), y = Math.round(cy + r * Math.sin(a * Math.PI / 180));
         if (document.elementFromPoint(x, y)?.classList.contains("react-flow__pane")) return [x, y];
+      }
     return null;
   })()`)) as [number, number] | null;
   if (!spot) throw new Error("no empty spot on the canvas to pan from");

@@ -1,8 +1,8 @@
 "use client";
 
 import { createContext, useContext, useSyncExternalStore } from "react";
-import type { PartData } from "./nodes";
-import type { WireData } from "./wire-edge";
+import type { PartData, PartFigures } from "./nodes";
+import type { WireData, WireFiguresView } from "./wire-edge";
 
 /**
  * What each part and cable on the canvas shows (its settings and, once solved, its figures), kept outside the canvas
@@ -46,7 +46,7 @@ export class ViewStore<T> {
   }
 }
 
-export type CanvasView = { parts: ViewStore<PartData>; wires: ViewStore<WireData> };
+export type CanvasView = { parts: ViewStore<PartData>; partFigures: ViewStore<PartFigures>; wires: ViewStore<WireData>; wireFigures: ViewStore<WireFiguresView> };
 
 export const CanvasViewContext = createContext<CanvasView | null>(null);
 
@@ -60,5 +60,9 @@ function useView<T>(store: ViewStore<T> | undefined, id: string): T | undefined 
 
 /** What a part's node draws. */
 export const usePartView = (id: string) => useView(useContext(CanvasViewContext)?.parts, id);
-/** What a cable's edge draws. */
+/** A part's figures (its terminals' volts). */
+export const usePartFigures = (id: string) => useView(useContext(CanvasViewContext)?.partFigures, id);
+/** What a cable's edge draws besides its figures. */
 export const useWireView = (id: string) => useView(useContext(CanvasViewContext)?.wires, id);
+/** A cable's figures line. */
+export const useWireFigures = (id: string) => useView(useContext(CanvasViewContext)?.wireFigures, id);

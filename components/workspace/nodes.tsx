@@ -3,19 +3,20 @@
 import { Handle, Position, type Node, type NodeProps, type NodeTypes } from "@xyflow/react";
 import { TERMINALS, type Component, type ComponentKind } from "@/lib/circuit";
 import type { Band } from "@/lib/workspace/analysis";
-import { usePartView } from "./canvas-view";
+import { memo } from "react";
+import { usePartFigures, usePartView } from "./canvas-view";
 import { Symbol } from "./symbols";
 
-/** What a part's node carries: the part itself and, when solved, its terminals' voltages and its state. */
+/** What a part's node draws besides its figures: the part itself and, when solved, its state. */
 export type PartData = {
   component: Component;
-  /** Volts at each terminal (by terminal name) relative to the reference. */
-  volts?: Record<string, number>;
   /** A joint's drop band, or a part that is off. */
   band?: Band;
   off?: boolean;
   note?: string;
 };
+/** A part's figures: volts at each terminal (by terminal name) relative to the reference, once solved. */
+export type PartFigures = { volts?: Record<string, number> };
 /** The canvas's node: only its kind and place; what it shows comes from the canvas view store (canvas-view.tsx). */
 export type PartNode = Node<Record<string, never>, ComponentKind>;
 
@@ -29,26 +30,64 @@ const bandRing: Record<Band, string> = {
 
 /** Figures too small to read when the canvas is zoomed out (see ZoomDetail in workspace.tsx) leave the layout. */
 const FAR_HIDDEN = "group-data-[far=true]/canvas:hidden";
+/**
+ * Zoomed in, the figures off screen (parts' volts, cables' labels) are skipped by layout and paint
+ * (content-visibility: auto): an edit re-solves every figure, and only those in view are laid out again. Zoomed out,
+ * everything is on screen and the browser's per-frame visibility checks would only slow panning, so it is off. Never
+ * on a whole part: its terminals must stay laid out for the canvas to find them when a cable is drawn.
+ */
+export const ON_SCREEN_ONLY = "group-data-[far=false]/canvas:[content-visibility:auto]";
 
 function volts(v: number | undefined) {
   return v === undefined ? null : `${v.toFixed(Math.abs(v) < 10 ? 3 : 2)} V`;
 }
 
-/** Whether two node data would draw the same: the same figures as shown (volts to the digits on screen). */
+/** Whether two parts draw the same apart from their figures. */
 export function samePartView(a: PartData, b: PartData): boolean {
-  if (a.band !== b.band || a.off !== b.off || a.note !== b.note || Boolean(a.volts) !== Boolean(b.volts)) return false;
-  if (!a.volts || !b.volts) return true;
+  return a.component === b.component && a.band === b.band && a.off === b.off && a.note === b.note;
+}
+
+/** Whether two parts' figures draw the same: the volts to the digits on screen. */
+export function samePartFigures(a: PartFigures, b: PartFigures): boolean {
+  if (!a.volts || !b.volts) return !a.volts === !b.volts;
   const keys = Object.keys(b.volts);
   return keys.length === Object.keys(a.volts).length && keys.every((k) => volts(a.volts![k]) === volts(b.volts![k]));
 }
 
+/**
+ * A part on the canvas. Its drawing and its figures come from two view stores: a re-solve usually changes only the
+ * figures, and then only the small figures row is drawn again, not the part with its symbol and terminals.
+ */
 function PartView({ id, selected, type }: NodeProps<PartNode>) {
   const data = usePartView(id);
   if (!data) return null;
   return <PartDrawing data={data} selected={selected} type={type} />;
 }
 
-function PartDrawing({ data, selected, type }: { data: PartData; selected: boolean; type: string }) {
+/** The figures row's size while it is skipped off screen. */
+const FIGURES_SIZE = { containIntrinsicSize: "auto 100px auto 15px" };
+
+/** A part's terminal voltages, in terminal order. */
+function PartVolts({ id, kind }: { id: string; kind: ComponentKind }) {
+  const v = usePartFigures(id)?.volts;
+  if (!v) return null;
+  const [first, second] = TERMINALS[kind];
+  if (second === undefined) {
+    return v[first] !== undefined ? (
+      <div className={`mt-0.5 font-mono text-[10px] text-copper-700 ${FAR_HIDDEN} ${ON_SCREEN_ONLY}`} style={FIGURES_SIZE}>
+        {volts(v[first])}
+      </div>
+    ) : null;
+  }
+  return (
+    <div className={`mt-0.5 flex justify-between font-mono text-[10px] text-copper-700 ${FAR_HIDDEN} ${ON_SCREEN_ONLY}`} style={FIGURES_SIZE}>
+      <span>{volts(v[first])}</span>
+      <span>{volts(v[second])}</span>
+    </div>
+  );
+}
+
+const PartDrawing = memo(function PartDrawing({ data, selected, type }: { data: PartData; selected: boolean; type: string }) {
   const c = data.component;
   const kind = type as ComponentKind;
   const oneTerminal = kind === "junction" || kind === "ground";
@@ -57,9 +96,7 @@ function PartDrawing({ data, selected, type }: { data: PartData; selected: boole
   return (
     <div
       className={`relative rounded-md border bg-white px-2 pb-1 pt-1 text-center shadow-sm ${ring} ${selected ? "outline outline-2 outline-offset-2 outline-copper-500" : ""} ${data.off ? "opacity-60" : ""}`}
-      // Off screen, a part's drawing is skipped by layout and paint (content-visibility): an edit re-solves every
-      // figure, and only the parts in view need laying out again.
-      style={{ width: oneTerminal ? 96 : 132, contentVisibility: "auto", containIntrinsicSize: `auto ${oneTerminal ? 96 : 132}px auto 88px` }}
+      style={{ width: oneTerminal ? 96 : 132 }}
       data-testid={`part-${c.id}`}
       title={data.note}
     >
@@ -72,7 +109,7 @@ function PartDrawing({ data, selected, type }: { data: PartData; selected: boole
       {oneTerminal ? (
         <>
           <Handle id="t" type="source" position={Position.Top} className="!h-3 !w-3 !border-2 !border-white !bg-copper-600" aria-label={`${c.id} terminal`} />
-          {data.volts?.t !== undefined ? <div className={`mt-0.5 font-mono text-[10px] text-copper-700 ${FAR_HIDDEN}`}>{volts(data.volts.t)}</div> : null}
+          <PartVolts id={c.id} kind={kind} />
         </>
       ) : (
         <>
@@ -80,17 +117,12 @@ function PartDrawing({ data, selected, type }: { data: PartData; selected: boole
           <Handle id={second} type="source" position={Position.Right} className="!h-3 !w-3 !border-2 !border-white !bg-graphite-700" aria-label={`${c.id} ${second}`} />
           <span className="absolute -left-1 top-1/2 -translate-x-full -translate-y-5 text-[10px] font-semibold text-graphite-700">{ROLE[first]}</span>
           <span className="absolute -right-1 top-1/2 -translate-y-5 translate-x-full text-[10px] font-semibold text-graphite-700">{ROLE[second]}</span>
-          {data.volts ? (
-            <div className={`mt-0.5 flex justify-between font-mono text-[10px] text-copper-700 ${FAR_HIDDEN}`}>
-              <span>{volts(data.volts[first])}</span>
-              <span>{volts(data.volts[second])}</span>
-            </div>
-          ) : null}
+          <PartVolts id={c.id} kind={kind} />
         </>
       )}
     </div>
   );
-}
+});
 
 const kindWord: Record<ComponentKind, string> = {
   battery: "Battery",

@@ -29,13 +29,13 @@ import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
 import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
 import { CanvasViewContext, ViewStore, type CanvasView } from "./canvas-view";
-import { nodeTypes, samePartView, type PartData, type PartNode } from "./nodes";
+import { nodeTypes, samePartFigures, samePartView, type PartData, type PartFigures, type PartNode } from "./nodes";
 import { DEFAULT_PREFS, sizeShown, type UnitPrefs } from "@/lib/workspace/prefs";
 import { PropertiesPanel } from "./properties-panel";
 import { ReadingMarkers } from "./reading-markers";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
-import { BAND_COLOUR, edgeTypes, LABEL_MIN_ZOOM, sameWireView, type WireData, type WireEdgeType } from "./wire-edge";
+import { BAND_COLOUR, edgeTypes, LABEL_MIN_ZOOM, sameWireFigures, sameWireView, wireViews, type WireData, type WireEdgeType, type WireFiguresView } from "./wire-edge";
 
 const HISTORY_LIMIT = 100;
 const SAVE_DELAY_MS = 1200;
@@ -256,8 +256,10 @@ function Editor(props: {
   // ---- what each part and cable shows lives in the canvas view stores (see canvas-view.tsx); the canvas's own node
   // and edge lists carry only kinds, places, connections and selection, so a re-solve leaves them alone.
   const [view] = useState<CanvasView>(() => ({
-    parts: new ViewStore<PartData>((a, b) => a.component === b.component && samePartView(a, b)),
+    parts: new ViewStore<PartData>(samePartView),
+    partFigures: new ViewStore<PartFigures>(samePartFigures),
     wires: new ViewStore<WireData>(sameWireView),
+    wireFigures: new ViewStore<WireFiguresView>(sameWireFigures),
   }));
   const conductor = useCallback(
     (w: Wire) => {
@@ -280,21 +282,29 @@ function Editor(props: {
       }
     }
     const parts = new Map<string, PartData>();
+    const partFigures = new Map<string, PartFigures>();
     for (const c of doc.components) {
       const comp = result?.components[c.id];
       const f = c.kind === "joint" ? figureById.get(c.id) : undefined;
+      partFigures.set(c.id, { volts: result ? (voltsByPart.get(c.id) ?? {}) : undefined });
       parts.set(c.id, {
         component: c,
-        volts: result ? (voltsByPart.get(c.id) ?? {}) : undefined,
         band: f?.band.drop,
         off: comp?.mode === "off" || comp?.mode === "open",
         note: comp?.mode ? `mode: ${comp.mode}` : undefined,
       });
     }
     const wires = new Map<string, WireData>();
-    for (const w of doc.wires) wires.set(w.id, { wire: w, figures: figureById.get(w.id), overlay, conductor: conductor(w) });
+    const wireFigures = new Map<string, WireFiguresView>();
+    for (const w of doc.wires) {
+      const [look, figs] = wireViews(w, figureById.get(w.id), overlay, conductor(w));
+      wires.set(w.id, look);
+      wireFigures.set(w.id, figs);
+    }
     view.parts.replace(parts);
+    view.partFigures.replace(partFigures);
     view.wires.replace(wires);
+    view.wireFigures.replace(wireFigures);
   }, [doc, result, figureById, overlay, conductor, view]);
 
   // Canvas nodes follow the document's parts; xyflow's own measurements and selection are kept, and a part that did
