@@ -41,8 +41,8 @@ const HISTORY_LIMIT = 100;
 const SAVE_DELAY_MS = 1200;
 /**
  * Circuits this large are solved in a Web Worker, so the page keeps working while it solves. Below it the solve
- * (about 3 ms at 300 parts, 8 ms at 1,000 by npm run bench) runs in the render of the edit itself: one render instead
- * of two and no message round trip, which took the 302-part edit-to-overlay median from 235 to 101 ms (bench:ui).
+ * (under 1 ms at 300 parts, about 3 ms at 1,000 by npm run bench) runs in the render of the edit itself: one render
+ * instead of two and no message round trip (bench:ui).
  */
 const WORKER_FROM_COMPONENTS = 1500;
 

@@ -65,7 +65,7 @@ export function supplyRow(doc: CircuitDocument, stateId: string, r: SolveResult)
       ? anyCapacity
         ? ""
         : ` Give ${them} ${batteries > 1 ? "their" : "its"} capacity (Ah) to see how long ${batteries > 1 ? "they last" : "it lasts"}.`
-      : ` ${They} (${fmt(capacity, 0)} Ah) ${batteries > 1 ? "reach" : "reaches"} half charge in about ${row.hoursToHalf >= 1 ? `${fmt(row.hoursToHalf)} h` : `${Math.max(1, Math.round(row.hoursToHalf * 60))} min`} at this rate.`;
+      : ` ${They} (${fmt(capacity, 0)} Ah) ${batteries > 1 ? "reach" : "reaches"} half charge in about ${Math.round(row.hoursToHalf * 60) >= 60 ? `${fmt(row.hoursToHalf)} h` : `${Math.max(1, Math.round(row.hoursToHalf * 60))} min`} at this rate.`;
   if (row.ratedA === 0) {
     row.verdict = deficit > 0.05 ? "battery-only" : "keeps-up";
     row.message = deficit > 0.05 ? `${name}: no alternator is charging, so ${them} ${batteries > 1 ? "carry" : "carries"} all ${fmt(deficit)} A.${runtime}` : `${name}: nothing is drawing from ${them}.`;
