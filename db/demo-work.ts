@@ -52,7 +52,7 @@ export const pickupCharging: CircuitDocument = place(
     { id: "koeo", name: "Key on, engine off", set: { L1: { enabled: true, value: 120 } } },
   ],
   },
-  { B1: [40, 240], JBP: [40, 60], F1: [260, 60], JAB: [480, 60], A1: [720, 160], JAC: [720, 340], GE: [740, 500], JBN: [40, 420], L1: [300, 260], GB: [320, 440] },
+  { B1: [40, 240], JBP: [40, 60], F1: [320, 60], JAB: [600, 60], A1: [860, 160], JAC: [860, 340], GE: [880, 540], JBN: [40, 420], L1: [340, 240], GB: [360, 580] },
 );
 
 /** Unit 31: three batteries in parallel feeding the starter; the third battery is weak. */
