@@ -3,8 +3,10 @@
 import { Unavailable } from "@/components/ui/unavailable";
 import {
   applyNodeChanges,
+  getNodesBounds,
   Background,
   ConnectionMode,
+  ControlButton,
   Controls,
   MiniMap,
   ReactFlow,
@@ -52,6 +54,9 @@ const MULTI_SELECT_KEYS = ["Shift", "Meta", "Control"];
 const SNAP_GRID: [number, number] = [20, 20];
 const PRO_OPTIONS = { hideAttribution: true };
 const MINIMAP_STYLE = { width: 150, height: 100 };
+/** Room (in canvas units) around the parts when the whole drawing is fitted: cables that run round the outside
+ * carry their labels beyond the parts. */
+const FIT_MARGIN = { x: 90, y: 40 };
 
 /** The last edge made for each cable object, and whether it was selected (see edges below). */
 const edgeCache = new WeakMap<Wire, { selected: boolean; edge: WireEdgeType }>();
@@ -326,15 +331,24 @@ function Editor(props: {
 
   // Fit the drawing once its parts have been measured.
   // A part asked for in the address (a test plan's suspect) is fitted instead, with the parts its cables join.
-  const fitted = useRef(false);
+  const fitWhole = useCallback(() => {
+    const nodes = flow.getNodes();
+    if (!nodes.length) return;
+    const b = getNodesBounds(nodes);
+    void flow.fitBounds({ x: b.x - FIT_MARGIN.x, y: b.y - FIT_MARGIN.y, width: b.width + 2 * FIT_MARGIN.x, height: b.height + 2 * FIT_MARGIN.y }, { padding: 0.05 });
+  }, [flow]);
+  // A circuit begun empty keeps the view it has: fitting the first part dropped would zoom onto it, and the next
+  // parts dropped where the user meant would land on top of it.
+  const [startedEmpty] = useState(() => props.initial.components.length === 0);
+  const fitted = useRef(startedEmpty);
   useEffect(() => {
     if (fitted.current || !nodes.length || !result || !nodes.every((n) => n.measured)) return;
     fitted.current = true;
     const focus = props.focus?.length ? new Set(props.focus) : null;
     if (focus) for (const w of doc.wires) if (focus.has(w.id)) [w.from, w.to].forEach((t) => focus.add(t.slice(0, t.lastIndexOf("."))));
     // After the panels have taken their size, so the drawing fits the canvas it ends up in.
-    setTimeout(() => void (focus ? flow.fitView({ nodes: [...focus].map((id) => ({ id })), maxZoom: 1.2, padding: 0.6, duration: 300 }) : flow.fitView({ padding: 0.1 })), 100);
-  }, [nodes, flow, result, props.focus, doc.wires]);
+    setTimeout(() => void (focus ? flow.fitView({ nodes: [...focus].map((id) => ({ id })), maxZoom: 1.2, padding: 0.6, duration: 300 }) : fitWhole()), 100);
+  }, [nodes, flow, result, props.focus, doc.wires, fitWhole]);
 
   // Made again only when the cables or the selection change (an edit to a part keeps doc.wires).
   const edges: WireEdgeType[] = useMemo(
@@ -634,13 +648,20 @@ function Editor(props: {
             multiSelectionKeyCode={MULTI_SELECT_KEYS}
             snapToGrid
             snapGrid={SNAP_GRID}
-            fitView
+            fitView={!startedEmpty}
             minZoom={0.1}
             proOptions={PRO_OPTIONS}
           >
             <ZoomDetail target={wrapper} />
             <Background gap={20} size={1} color="#e4e7ea" />
-            <Controls showInteractive={false} />
+            <Controls showInteractive={false} showFitView={false}>
+              {/* Our own fit button: it leaves room for the labels of cables that run round the outside. */}
+              <ControlButton onClick={fitWhole} title="Fit the whole drawing" aria-label="Fit the whole drawing" data-testid="ws-fit">
+                <svg viewBox="0 0 16 16" fill="none" stroke="currentColor" strokeWidth="1.6" aria-hidden="true">
+                  <path d="M2 6V2h4M10 2h4v4M14 10v4h-4M6 14H2v-4" />
+                </svg>
+              </ControlButton>
+            </Controls>
             {showReadings && readings.data?.length ? <ReadingMarkers doc={doc} readings={readings.data} stateId={solveState} nodes={nodes} /> : null}
             <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={MINIMAP_STYLE} nodeStrokeWidth={2} />
           </ReactFlow>

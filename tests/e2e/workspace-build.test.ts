@@ -68,7 +68,7 @@ describe("building a circuit on the canvas", () => {
       await dropPart(page, kind, ...at(fx, fy));
       await page.getByTestId(`part-${id}`).waitFor();
     }
-    await page.locator(".react-flow__controls-fitview").click();
+    await page.getByTestId("ws-fit").click();
     await page.waitForTimeout(400);
     // W1..W7 in the order drawn.
     const cables: [string, string][] = [
@@ -116,6 +116,9 @@ describe("building a circuit on the canvas", () => {
     const expected = 300 * r;
     expect(expected).toBeCloseTo(0.1216, 3);
     await expect.poll(() => dropOf(page, "W7")).toBeCloseTo(expected, 3);
+    // The whole sketch in view for the picture, as a user would look at it.
+    await page.getByTestId("ws-fit").click();
+    await page.waitForTimeout(400);
     await screenshot(page, "workspace-built-dual-battery-1440");
 
     // Undo takes the 300 A back to the starter's 200 A (0.0811 V by the same arithmetic); redo returns it.

@@ -60,7 +60,7 @@ describe("the circuit workspace", () => {
     await page.getByTestId("palette-load").click();
     await page.getByTestId("part-L1").waitFor();
     // Join the new load's + to the battery's + by dragging between their terminal dots.
-    await page.locator(".react-flow__controls-fitview").click();
+    await page.getByTestId("ws-fit").click();
     await page.waitForTimeout(400);
     const from = await page.locator('[data-testid="part-L1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
     const to = await page.locator('[data-testid="part-B1"] .react-flow__handle[data-handleid="pos"]').boundingBox();
