@@ -63,7 +63,7 @@ describe("building a circuit on the canvas", () => {
       ["battery", 0.2, 0.7, "B2"],
       ["alternator", 0.75, 0.2, "A1"],
       ["starter", 0.75, 0.7, "M1"],
-      ["ground", 0.5, 0.85, "G1"],
+      ["ground", 0.45, 0.95, "G1"],
     ] as const) {
       await dropPart(page, kind, ...at(fx, fy));
       await page.getByTestId(`part-${id}`).waitFor();
