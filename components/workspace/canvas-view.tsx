@@ -1,6 +1,7 @@
 "use client";
 
-import { createContext, useContext, useSyncExternalStore } from "react";
+import { useStore } from "@xyflow/react";
+import { createContext, useContext, useEffect, useSyncExternalStore, type RefObject } from "react";
 import type { PartData, PartFigures } from "./nodes";
 import type { WireData, WireFiguresView } from "./wire-edge";
 
@@ -44,6 +45,32 @@ export class ViewStore<T> {
     }
     for (const id of changed) this.listeners.get(id)?.forEach((l) => l());
   }
+}
+
+/** Below this zoom the figures (cables' labels, parts' volts) are left out: too small to read. */
+export const LABEL_MIN_ZOOM = 0.5;
+/** Figures too small to read when the canvas is zoomed out (see ZoomDetail) leave the layout. */
+export const FAR_HIDDEN = "group-data-[far=true]/canvas:hidden";
+/**
+ * Zoomed in, the figures off screen (parts' volts, cables' labels) are skipped by layout and paint
+ * (content-visibility: auto): an edit re-solves every figure, and only those in view are laid out again. Zoomed out,
+ * everything is on screen and the browser's per-frame visibility checks would only slow panning, so it is off. Never
+ * on a whole part: its terminals must stay laid out for the canvas to find them when a cable is drawn.
+ */
+export const ON_SCREEN_ONLY = "group-data-[far=false]/canvas:[content-visibility:auto]";
+
+/**
+ * Marks the canvas element (a `group/canvas`) as zoomed out with data-far, where the parts' figures would be too
+ * small to read: they are then left out of the layout (as the cables' labels are), so a re-solve of a large drawing
+ * seen whole does not re-lay out hundreds of unreadable figures. Set on the element directly: crossing the threshold
+ * re-renders nothing.
+ */
+export function ZoomDetail({ target }: { target: RefObject<HTMLDivElement | null> }) {
+  const far = useStore((s) => s.transform[2] < LABEL_MIN_ZOOM);
+  useEffect(() => {
+    target.current?.setAttribute("data-far", String(far));
+  }, [far, target]);
+  return null;
 }
 
 export type CanvasView = { parts: ViewStore<PartData>; partFigures: ViewStore<PartFigures>; wires: ViewStore<WireData>; wireFigures: ViewStore<WireFiguresView> };

@@ -4,7 +4,7 @@ import { Handle, Position, type Node, type NodeProps, type NodeTypes } from "@xy
 import { TERMINALS, type Component, type ComponentKind } from "@/lib/circuit";
 import type { Band } from "@/lib/workspace/analysis";
 import { memo } from "react";
-import { usePartFigures, usePartView } from "./canvas-view";
+import { FAR_HIDDEN, ON_SCREEN_ONLY, usePartFigures, usePartView } from "./canvas-view";
 import { Symbol } from "./symbols";
 
 /** What a part's node draws besides its figures: the part itself and, when solved, its state. */
@@ -27,16 +27,6 @@ const bandRing: Record<Band, string> = {
   caution: "border-caution ring-2 ring-caution/40",
   over: "border-over ring-2 ring-over/50 border-dashed",
 };
-
-/** Figures too small to read when the canvas is zoomed out (see ZoomDetail in workspace.tsx) leave the layout. */
-const FAR_HIDDEN = "group-data-[far=true]/canvas:hidden";
-/**
- * Zoomed in, the figures off screen (parts' volts, cables' labels) are skipped by layout and paint
- * (content-visibility: auto): an edit re-solves every figure, and only those in view are laid out again. Zoomed out,
- * everything is on screen and the browser's per-frame visibility checks would only slow panning, so it is off. Never
- * on a whole part: its terminals must stay laid out for the canvas to find them when a cable is drawn.
- */
-export const ON_SCREEN_ONLY = "group-data-[far=false]/canvas:[content-visibility:auto]";
 
 function volts(v: number | undefined) {
   return v === undefined ? null : `${v.toFixed(Math.abs(v) < 10 ? 3 : 2)} V`;

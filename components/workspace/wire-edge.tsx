@@ -3,8 +3,7 @@
 import { BaseEdge, EdgeLabelRenderer, getSmoothStepPath, useStore, type Edge, type EdgeProps, type EdgeTypes } from "@xyflow/react";
 import type { Wire } from "@/lib/circuit";
 import type { Band, Overlay, WireFigures } from "@/lib/workspace/analysis";
-import { useWireFigures, useWireView } from "./canvas-view";
-import { ON_SCREEN_ONLY } from "./nodes";
+import { LABEL_MIN_ZOOM, ON_SCREEN_ONLY, useWireFigures, useWireView } from "./canvas-view";
 
 /** What a cable's line and label draw besides its figures: the cable, its size and length, and its band. */
 export type WireData = { wire: Wire; overlay: Overlay; conductor: string; band?: Band; over: boolean };
@@ -13,8 +12,6 @@ export type WireFiguresView = { text?: string };
 /** The canvas's edge: only its ends; what it shows comes from the canvas view store (canvas-view.tsx). */
 export type WireEdgeType = Edge<Record<string, never>, "wire">;
 
-/** Below this zoom the cable labels are left out. */
-export const LABEL_MIN_ZOOM = 0.5;
 
 export const BAND_COLOUR: Record<Band, string> = { within: "#2d7a56", caution: "#a86a0c", over: "#b0301f" };
 

@@ -12,7 +12,6 @@ import {
   ReactFlow,
   ReactFlowProvider,
   useReactFlow,
-  useStore,
   type Connection,
   type EdgeChange,
   type NodeChange,
@@ -30,14 +29,14 @@ import { addComponent, addWire, copyItems, freeSpot, KIND_NAMES, moveComponents,
 import { supplyCheck, supplyRow, type SupplyRow } from "@/lib/workspace/supply";
 import { AddLoadDialog } from "./add-load-dialog";
 import { exportCanvas } from "./export";
-import { CanvasViewContext, ViewStore, type CanvasView } from "./canvas-view";
+import { CanvasViewContext, ViewStore, ZoomDetail, type CanvasView } from "./canvas-view";
 import { nodeTypes, samePartFigures, samePartView, type PartData, type PartFigures, type PartNode } from "./nodes";
 import { DEFAULT_PREFS, sizeShown, type UnitPrefs } from "@/lib/workspace/prefs";
 import { PropertiesPanel } from "./properties-panel";
 import { ReadingMarkers } from "./reading-markers";
 import { ResultsTable } from "./results-table";
 import { Symbol } from "./symbols";
-import { BAND_COLOUR, edgeTypes, LABEL_MIN_ZOOM, sameWireFigures, sameWireView, wireViews, type WireData, type WireEdgeType, type WireFiguresView } from "./wire-edge";
+import { BAND_COLOUR, edgeTypes, sameWireFigures, sameWireView, wireViews, type WireData, type WireEdgeType, type WireFiguresView } from "./wire-edge";
 
 const HISTORY_LIMIT = 100;
 const SAVE_DELAY_MS = 1200;
@@ -67,19 +66,6 @@ function keepIfSame<T>(prev: T[], next: T[]): T[] {
 }
 
 type SaveState = { kind: "saved"; version: number } | { kind: "dirty" } | { kind: "saving" } | { kind: "error"; message: string };
-
-/**
- * Marks the canvas as zoomed out (data-far), where the parts' figures would be too small to read: they are then left
- * out of the layout (as the cables' labels are), so a re-solve of a large drawing seen whole does not re-lay out
- * hundreds of unreadable figures. Set on the element directly: crossing the threshold re-renders nothing.
- */
-function ZoomDetail({ target }: { target: React.RefObject<HTMLDivElement | null> }) {
-  const far = useStore((s) => s.transform[2] < LABEL_MIN_ZOOM);
-  useEffect(() => {
-    target.current?.setAttribute("data-far", String(far));
-  }, [far, target]);
-  return null;
-}
 
 function usePrefs(): [UnitPrefs, (p: UnitPrefs) => void] {
   const [prefs, setPrefs] = useState<UnitPrefs>(DEFAULT_PREFS);
@@ -329,8 +315,7 @@ function Editor(props: {
     });
   }, [doc]);
 
-  // Fit the drawing once its parts have been measured.
-  // A part asked for in the address (a test plan's suspect) is fitted instead, with the parts its cables join.
+  // The whole drawing in view, with room at the sides for the labels of cables that run round the outside.
   const fitWhole = useCallback(() => {
     const nodes = flow.getNodes();
     if (!nodes.length) return;
@@ -340,6 +325,8 @@ function Editor(props: {
   // A circuit begun empty keeps the view it has: fitting the first part dropped would zoom onto it, and the next
   // parts dropped where the user meant would land on top of it.
   const [startedEmpty] = useState(() => props.initial.components.length === 0);
+  // Fit the drawing once its parts have been measured; a part asked for in the address (a test plan's suspect) is
+  // fitted instead, with the parts its cables join.
   const fitted = useRef(startedEmpty);
   useEffect(() => {
     if (fitted.current || !nodes.length || !result || !nodes.every((n) => n.measured)) return;
@@ -632,39 +619,39 @@ function Editor(props: {
           data-far="false"
         >
           <CanvasViewContext.Provider value={view}>
-          <ReactFlow
-            nodes={nodes}
-            edges={edges}
-            nodeTypes={nodeTypes}
-            edgeTypes={edgeTypes}
-            onNodesChange={onNodesChange}
-            onEdgesChange={onEdgesChange}
-            onConnect={onConnect}
-            onNodeDragStop={onDragStop}
-            connectionMode={ConnectionMode.Loose}
-            nodesDraggable={props.canEdit}
-            nodesConnectable={props.canEdit}
-            deleteKeyCode={props.canEdit ? DELETE_KEYS : null}
-            multiSelectionKeyCode={MULTI_SELECT_KEYS}
-            snapToGrid
-            snapGrid={SNAP_GRID}
-            fitView={!startedEmpty}
-            minZoom={0.1}
-            proOptions={PRO_OPTIONS}
-          >
-            <ZoomDetail target={wrapper} />
-            <Background gap={20} size={1} color="#e4e7ea" />
-            <Controls showInteractive={false} showFitView={false}>
-              {/* Our own fit button: it leaves room for the labels of cables that run round the outside. */}
-              <ControlButton onClick={fitWhole} title="Fit the whole drawing" aria-label="Fit the whole drawing" data-testid="ws-fit">
-                <svg viewBox="0 0 16 16" fill="none" stroke="currentColor" strokeWidth="1.6" aria-hidden="true">
-                  <path d="M2 6V2h4M10 2h4v4M14 10v4h-4M6 14H2v-4" />
-                </svg>
-              </ControlButton>
-            </Controls>
-            {showReadings && readings.data?.length ? <ReadingMarkers doc={doc} readings={readings.data} stateId={solveState} nodes={nodes} /> : null}
-            <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={MINIMAP_STYLE} nodeStrokeWidth={2} />
-          </ReactFlow>
+            <ReactFlow
+              nodes={nodes}
+              edges={edges}
+              nodeTypes={nodeTypes}
+              edgeTypes={edgeTypes}
+              onNodesChange={onNodesChange}
+              onEdgesChange={onEdgesChange}
+              onConnect={onConnect}
+              onNodeDragStop={onDragStop}
+              connectionMode={ConnectionMode.Loose}
+              nodesDraggable={props.canEdit}
+              nodesConnectable={props.canEdit}
+              deleteKeyCode={props.canEdit ? DELETE_KEYS : null}
+              multiSelectionKeyCode={MULTI_SELECT_KEYS}
+              snapToGrid
+              snapGrid={SNAP_GRID}
+              fitView={!startedEmpty}
+              minZoom={0.1}
+              proOptions={PRO_OPTIONS}
+            >
+              <ZoomDetail target={wrapper} />
+              <Background gap={20} size={1} color="#e4e7ea" />
+              <Controls showInteractive={false} showFitView={false}>
+                {/* Our own fit button: it leaves room for the labels of cables that run round the outside. */}
+                <ControlButton onClick={fitWhole} title="Fit the whole drawing" aria-label="Fit the whole drawing" data-testid="ws-fit">
+                  <svg viewBox="0 0 16 16" fill="none" stroke="currentColor" strokeWidth="1.6" aria-hidden="true">
+                    <path d="M2 6V2h4M10 2h4v4M14 10v4h-4M6 14H2v-4" />
+                  </svg>
+                </ControlButton>
+              </Controls>
+              {showReadings && readings.data?.length ? <ReadingMarkers doc={doc} readings={readings.data} stateId={solveState} nodes={nodes} /> : null}
+              <MiniMap pannable zoomable position="top-right" className="!hidden xl:!block" style={MINIMAP_STYLE} nodeStrokeWidth={2} />
+            </ReactFlow>
           </CanvasViewContext.Provider>
         </div>
 
