@@ -21,6 +21,9 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
+          // Handlers are called in process, as scripts/serve.mjs would call them: the socket's address comes in
+          // its own header, which tests set per call (tests/support/sessions.ts).
+          env: { AMPWRIGHT_PEER_HEADER: "1" },
           globalSetup: ["tests/support/integration-setup.ts"],
           testTimeout: 60_000,
           hookTimeout: 60_000,

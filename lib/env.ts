@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { parseTrustedProxies } from "@/lib/net/client-address";
 
 /** Settings read once from the environment, with the defaults `.env.example` documents. */
 const envSchema = z.object({
@@ -13,6 +14,21 @@ const envSchema = z.object({
   S3_BUCKET: z.string().min(3).default("ampwright"),
   S3_ACCESS_KEY_ID: z.string().default("S3RVER"),
   S3_SECRET_ACCESS_KEY: z.string().default("S3RVER"),
+  /**
+   * Proxies in front of the app whose X-Forwarded-For is believed (addresses or CIDR ranges, comma separated).
+   * Default none: the caller is the address of the socket.
+   */
+  TRUSTED_PROXIES: z
+    .string()
+    .default("")
+    .refine((v) => {
+      try {
+        parseTrustedProxies(v);
+        return true;
+      } catch {
+        return false;
+      }
+    }, "TRUSTED_PROXIES is a comma-separated list of addresses or CIDR ranges, such as 10.0.0.0/8,127.0.0.1"),
   /** Signs sessions; required in production (npm start generates one for local runs). */
   BETTER_AUTH_SECRET: z.preprocess(
     (v) => (v === "" ? undefined : v), // an empty line copied from .env.example means "not set"

@@ -30,7 +30,7 @@ node_modules/.bin/tsx db/seed.ts
 say "building into $NEXT_DIST_DIR (about a minute)"
 node_modules/.bin/next build >/tmp/ampwright-bench-build.log 2>&1 || { tail -n 30 /tmp/ampwright-bench-build.log; exit 1; }
 port_busy "$BENCH_PORT" && { say "port $BENCH_PORT is in use; set BENCH_PORT"; exit 1; }
-setsid node_modules/.bin/next start -H 127.0.0.1 -p "$BENCH_PORT" >/tmp/ampwright-bench-server.log 2>&1 &
+setsid node scripts/serve.mjs -H 127.0.0.1 -p "$BENCH_PORT" >/tmp/ampwright-bench-server.log 2>&1 &
 SERVER_PID=$!
 wait_for_http "$APP_URL/api/health" "$SERVER_PID"
 set +e

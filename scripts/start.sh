@@ -49,7 +49,7 @@ say "building (about a minute on two cores)"
 NEXT_DIST_DIR=.next node_modules/.bin/next build >"$ROOT/.data/build.log" 2>&1 ||
   { tail -n 40 "$ROOT/.data/build.log" >&2; say "the build failed; the full log is .data/build.log"; exit 1; }
 
-setsid node_modules/.bin/next start -H 127.0.0.1 -p "$PORT" &
+setsid node scripts/serve.mjs -H 127.0.0.1 -p "$PORT" &
 SERVER_PID=$!
 if ! wait_for_http "http://127.0.0.1:$PORT/api/health" "$SERVER_PID"; then
   say "the server did not come up on port $PORT"; exit 1

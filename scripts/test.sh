@@ -72,7 +72,7 @@ if [ "$(cat "$REPORTS/build.check")" = pass ]; then
   if port_busy "$TEST_PORT"; then
     say "port $TEST_PORT is in use; set TEST_PORT to a free port"; echo fail >"$REPORTS/server.check"
   else
-    setsid node_modules/.bin/next start -H 127.0.0.1 -p "$TEST_PORT" >"$REPORTS/server.log" 2>&1 &
+    setsid node scripts/serve.mjs -H 127.0.0.1 -p "$TEST_PORT" >"$REPORTS/server.log" 2>&1 &
     SERVER_PID=$!
     if wait_for_http "$APP_URL/api/health" "$SERVER_PID"; then
       echo pass >"$REPORTS/server.check"

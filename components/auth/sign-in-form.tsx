@@ -3,6 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
+import { safeLocalPath } from "@/lib/net/redirect";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormError, primaryButton } from "@/components/ui/field";
@@ -11,7 +12,7 @@ import { signInInput, type SignInInput } from "@/lib/validators/auth";
 
 export function SignInForm() {
   const router = useRouter();
-  const next = useSearchParams().get("next") ?? "/jobs";
+  const next = safeLocalPath(useSearchParams().get("next"));
   const [error, setError] = useState<string | null>(null);
   const form = useForm<SignInInput>({ resolver: zodResolver(signInInput) });
   const submit = form.handleSubmit(async (values) => {
@@ -27,7 +28,7 @@ export function SignInForm() {
       );
       return;
     }
-    router.push(next.startsWith("/") ? next : "/jobs");
+    router.push(next);
     router.refresh();
   });
   return (

@@ -3,6 +3,7 @@
 import { zodResolver } from "@hookform/resolvers/zod";
 import Link from "next/link";
 import { useRouter, useSearchParams } from "next/navigation";
+import { safeLocalPath } from "@/lib/net/redirect";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import { Field, FormError, primaryButton } from "@/components/ui/field";
@@ -12,7 +13,7 @@ import { PASSWORD_MIN, signUpInput, type SignUpInput } from "@/lib/validators/au
 export function SignUpForm() {
   const router = useRouter();
   const next = useSearchParams().get("next");
-  const callbackURL = next && next.startsWith("/") ? next : "/jobs";
+  const callbackURL = safeLocalPath(next);
   const [error, setError] = useState<string | null>(null);
   const form = useForm<SignUpInput>({ resolver: zodResolver(signUpInput) });
   const submit = form.handleSubmit(async (values) => {

@@ -4,6 +4,7 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { authClient } from "@/lib/auth/client";
 import { useMyOrganizations } from "@/lib/hooks/organizations";
+import { apiFetch } from "@/lib/query/client";
 
 /** Who is signed in, which shop or class they work in, and the way out; or the way in. */
 export function AccountMenu() {
@@ -27,7 +28,7 @@ export function AccountMenu() {
           <select
             value={active}
             onChange={async (e) => {
-              await authClient.organization.setActive({ organizationId: e.target.value });
+              await apiFetch(`/api/v1/organizations/${encodeURIComponent(e.target.value)}/activate`, { method: "POST" });
               await refetch();
               router.refresh();
             }}

@@ -62,13 +62,13 @@ export async function readingInJob(db: Db, readingId: string, jobId: string): Pr
   return rows.length > 0;
 }
 
-/** A pending attachment and the object key its upload goes to. */
+/** A pending attachment and the staging key its upload goes to (finishing moves the checked file elsewhere). */
 export async function createPendingAttachment(
   db: Db,
   p: { organizationId: string; jobId: string; readingId: string | null; fileName: string; contentType: string; sizeBytes: number; userId: string },
 ): Promise<{ id: string; objectKey: string }> {
   const id = newId("att");
-  const objectKey = `${p.organizationId}/${p.jobId}/${id}`;
+  const objectKey = `staging/${p.organizationId}/${p.jobId}/${id}`;
   await db.insert(attachments).values({
     id,
     organizationId: p.organizationId,
@@ -87,10 +87,10 @@ export async function createPendingAttachment(
 
 export async function markAttachmentReady(
   db: Db,
-  p: { id: string; organizationId: string; jobId: string; userId: string; contentType: string; sizeBytes: number; sha256: string; thumbnailKey: string | null; fileName: string },
+  p: { id: string; organizationId: string; jobId: string; userId: string; objectKey: string; contentType: string; sizeBytes: number; sha256: string; thumbnailKey: string | null; fileName: string },
 ) {
   await db.transaction(async (tx) => {
-    await tx.update(attachments).set({ status: "ready", contentType: p.contentType, sizeBytes: p.sizeBytes, sha256: p.sha256, thumbnailKey: p.thumbnailKey }).where(eq(attachments.id, p.id));
+    await tx.update(attachments).set({ status: "ready", objectKey: p.objectKey, contentType: p.contentType, sizeBytes: p.sizeBytes, sha256: p.sha256, thumbnailKey: p.thumbnailKey }).where(eq(attachments.id, p.id));
     await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: "attachment.add", entityType: "job", entityId: p.jobId, detail: { attachmentId: p.id, fileName: p.fileName, contentType: p.contentType, sizeBytes: p.sizeBytes } });
   });
 }

@@ -1,8 +1,8 @@
 import "server-only";
 import { randomUUID } from "node:crypto";
-import { and, eq } from "drizzle-orm";
+import { and, eq, gt } from "drizzle-orm";
 import type { Db } from "@/db";
-import { member, organization, user } from "@/db/schema";
+import { member, organization, session, user } from "@/db/schema";
 
 export type OrgKind = "shop" | "class";
 
@@ -89,4 +89,15 @@ export async function setMemberRole(db: Db, organizationId: string, memberId: st
 
 export async function removeMember(db: Db, organizationId: string, memberId: string) {
   await db.delete(member).where(and(eq(member.organizationId, organizationId), eq(member.id, memberId)));
+}
+
+/** A session's organisation while its row exists and has not expired (signing out deletes it); else undefined. */
+export async function liveSession(db: Db, sessionId: string): Promise<{ activeOrganizationId: string | null } | undefined> {
+  const rows = await db.select({ activeOrganizationId: session.activeOrganizationId }).from(session).where(and(eq(session.id, sessionId), gt(session.expiresAt, new Date()))).limit(1);
+  return rows[0];
+}
+
+/** The organisation a session works in (the caller's membership is checked by the route first). */
+export async function setSessionOrganization(db: Db, sessionId: string, organizationId: string) {
+  await db.update(session).set({ activeOrganizationId: organizationId, updatedAt: new Date() }).where(eq(session.id, sessionId));
 }

@@ -33,7 +33,13 @@ type Op = {
   ifMatch?: boolean;
 };
 
-const common = { "401": "Not signed in", "404": "No such record, or not yours to see", "422": "A field needs fixing; see error.issues" };
+const common = {
+  "400": "Malformed JSON, or a NUL or broken character anywhere in the request",
+  "401": "Not signed in",
+  "404": "No such record, or not yours to see",
+  "415": "A body that is not sent as application/json",
+  "422": "A field needs fixing; see error.issues",
+};
 
 /** Every documented route: the API reference page and openapi.json are both drawn from this list. */
 export const OPERATIONS: Op[] = [
@@ -80,8 +86,8 @@ export const OPERATIONS: Op[] = [
   { method: "post", path: "/api/v1/jobs/{jobId}/attachments", summary: "Start an upload: a record and a presigned URL to PUT the file to, then POST its complete URL", access: "who may edit the job", body: startUploadInput, responses: { "201": "The upload URL and headers", "403": "Read-only role", ...common } },
   { method: "get", path: "/api/v1/attachments/{attachmentId}", summary: "One attachment: type read from its bytes, size, SHA-256, who and when", access: "who may read the job", responses: { "200": "The attachment", ...common } },
   { method: "delete", path: "/api/v1/attachments/{attachmentId}", summary: "Remove a file from storage and the job", access: "who may edit the job", responses: { "204": "Deleted", "403": "Read-only role", ...common } },
-  { method: "post", path: "/api/v1/attachments/{attachmentId}/complete", summary: "Finish an upload: check type and size from the stored bytes, make a thumbnail", access: "who may edit the job", responses: { "200": "The attachment", "409": "Nothing uploaded yet", ...common, "422": "Too large, empty or not a photo or PDF (the file is removed)" } },
-  { method: "get", path: "/api/v1/attachments/{attachmentId}/file", summary: "Redirect to a short-lived URL of the file (?variant=thumbnail, ?download=1)", access: "who may read the job", responses: { "302": "Presigned URL", ...common } },
+  { method: "post", path: "/api/v1/attachments/{attachmentId}/complete", summary: "Finish an upload: check type and size from the stored bytes, make a thumbnail", access: "who may edit the job", responses: { "200": "The attachment", "409": "Nothing uploaded yet", ...common, "422": "Too large, empty, not a photo or PDF, or a PDF with a script or launch action (the file is removed)" } },
+  { method: "get", path: "/api/v1/attachments/{attachmentId}/file", summary: "A photo: redirect to a short-lived URL (?variant=thumbnail, ?download=1); a PDF: the file itself, as a download", access: "who may read the job", responses: { "200": "The PDF (attachment, nosniff)", "302": "Presigned URL of the photo", ...common } },
   { method: "get", path: "/api/v1/circuits/{circuitId}/lesson", summary: "Whether the caller may publish this circuit as a lesson, and the lesson made from it", access: "who may read the circuit", responses: { "200": "canPublish and the lesson or null", ...common } },
   { method: "post", path: "/api/v1/circuits/{circuitId}/lesson", summary: "Publish the circuit as it is now to its class as a lesson (again: a new version)", access: "a class's owner or instructor", body: publishLessonInput, responses: { "201": "The new lesson", "200": "A new version of the lesson", "403": "Not an instructor, or not a class", ...common } },
   { method: "get", path: "/api/v1/lessons", summary: "Lessons of every class the caller is in (instructors also get counts)", access: "signed in", responses: { "200": "Lessons", "401": "Not signed in" } },
@@ -92,13 +98,14 @@ export const OPERATIONS: Op[] = [
   { method: "get", path: "/api/v1/organizations", summary: "The shops and classes the caller belongs to, with their role", access: "signed in", responses: { "200": "Organisations", "401": "Not signed in" } },
   { method: "post", path: "/api/v1/organizations", summary: "Create a shop or a class; the caller becomes its owner", access: "signed in", body: createOrganizationInput, responses: { "201": "The organisation", "401": "Not signed in", "422": "A field needs fixing" } },
   { method: "get", path: "/api/v1/organizations/{orgId}", summary: "One organisation and the caller's role in it", access: "members", responses: { "200": "The organisation", ...common } },
+  { method: "post", path: "/api/v1/organizations/{orgId}/activate", summary: "Work in this organisation from now on (this session)", access: "members", responses: { "200": "The active organisation", ...common } },
   { method: "patch", path: "/api/v1/organizations/{orgId}", summary: "Rename an organisation", access: "owner, lead", body: renameOrganizationInput, responses: { "200": "Renamed", "403": "Role may not", ...common } },
   { method: "delete", path: "/api/v1/organizations/{orgId}", summary: "Delete an organisation with everything in it", access: "owner", responses: { "204": "Deleted", "403": "Role may not", ...common } },
   { method: "get", path: "/api/v1/organizations/{orgId}/members", summary: "Who is in the organisation, with their roles", access: "members but students", responses: { "200": "Members", "403": "Role may not", ...common } },
   { method: "patch", path: "/api/v1/organizations/{orgId}/members/{memberId}", summary: "Change a member's role", access: "owner, lead", body: changeRoleInput, responses: { "200": "Changed", "403": "Role may not, or the owner", ...common } },
   { method: "delete", path: "/api/v1/organizations/{orgId}/members/{memberId}", summary: "Remove a member", access: "owner, lead", responses: { "204": "Removed", "403": "Role may not, or the owner", ...common } },
   { method: "get", path: "/api/v1/organizations/{orgId}/invitations", summary: "Pending invitations", access: "owner, lead", responses: { "200": "Invitations", "403": "Role may not", ...common } },
-  { method: "post", path: "/api/v1/organizations/{orgId}/invitations", summary: "Invite by address and role; the mail goes through the outbox", access: "owner, lead", body: inviteInput, responses: { "201": "The invitation", "403": "Role may not", ...common } },
+  { method: "post", path: "/api/v1/organizations/{orgId}/invitations", summary: "Invite by address and role; the mail goes through the outbox", access: "owner, lead", body: inviteInput, responses: { "201": "The invitation", "403": "Role may not", "409": "An invitation to that address is already waiting", "429": "Daily invitation limit reached (per sender, organisation or recipient)", ...common } },
   { method: "delete", path: "/api/v1/organizations/{orgId}/invitations/{invitationId}", summary: "Revoke a pending invitation", access: "owner, lead", responses: { "204": "Revoked", "403": "Role may not", ...common } },
   { method: "get", path: "/api/v1/organizations/{orgId}/limits", summary: "The diagnosis limits in force: the organisation's own figures over the common-practice defaults", access: "members", responses: { "200": "Limits, own figures and defaults", ...common } },
   { method: "put", path: "/api/v1/organizations/{orgId}/limits", summary: "Set the organisation's own diagnosis limits (a figure left out goes back to its default)", access: "owner, lead", body: diagnosisLimitsInput, responses: { "200": "The limits now in force", "403": "Role may not", ...common } },

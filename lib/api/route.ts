@@ -1,5 +1,7 @@
 import "server-only";
 import type { z } from "zod";
+import { env } from "@/lib/env";
+import { badTextReason, findBadText } from "@/lib/validators/text";
 import { ApiError, errorResponse, zodIssues } from "./errors";
 
 type Ctx<TBody> = { req: Request; body: TBody; params: Record<string, string> };
@@ -9,7 +11,51 @@ type Options<S extends z.ZodType | undefined> = {
   body?: S;
   /** Largest body accepted, bytes (default 1 MB). */
   maxBytes?: number;
+  /**
+   * "compute" for a POST that changes nothing and reads no session (solve, cable size): it may come from anywhere.
+   * Every other write must come from Ampwright's own pages.
+   */
+  crossSite?: "refuse" | "compute";
 };
+
+const WRITES = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
+/**
+ * A write from a browser must come from the app's own origin: the Origin header when the browser sends one, else
+ * Sec-Fetch-Site. A request with neither did not come from a browser page, and so is refused too (no cookie-borne
+ * write can be forged without them).
+ */
+export function assertSameOrigin(req: Request): void {
+  const appOrigin = new URL(env().APP_URL).origin;
+  const origin = req.headers.get("origin");
+  if (origin !== null) {
+    if (origin !== appOrigin) throw new ApiError(403, "cross-site", "This change did not come from Ampwright's own pages, so it was refused.");
+    return;
+  }
+  const site = req.headers.get("sec-fetch-site");
+  if (site === "same-origin" || site === "none") return;
+  throw new ApiError(403, "cross-site", "This change did not say where it came from (no Origin header), so it was refused. Send it from Ampwright's pages.");
+}
+
+/** JSON bodies must say so: a form or text/plain post from another site cannot pass as JSON. */
+function assertJson(req: Request): void {
+  const type = (req.headers.get("content-type") ?? "").split(";")[0].trim().toLowerCase();
+  if (type !== "application/json") {
+    throw new ApiError(415, "unsupported-media-type", `Send the body as JSON with "Content-Type: application/json"${type ? ` (this one said ${type.slice(0, 60)})` : ""}.`);
+  }
+}
+
+/** Path ids and query values with NUL or broken characters are refused before anything reads them. */
+function assertCleanUrl(req: Request, params: Record<string, string>): void {
+  for (const [name, value] of Object.entries(params)) {
+    const reason = typeof value === "string" ? badTextReason(value) : undefined;
+    if (reason) throw new ApiError(400, "bad-text", `The address's ${name} ${reason}.`, [{ path: name, message: reason }]);
+  }
+  for (const [name, value] of new URL(req.url).searchParams) {
+    const reason = badTextReason(name) ?? badTextReason(value);
+    if (reason) throw new ApiError(400, "bad-text", `The query parameter ${badTextReason(name) ? "name" : name} ${reason}.`, [{ path: badTextReason(name) ? "(query)" : name, message: reason }]);
+  }
+}
 
 /**
  * One wrapper for every route handler: reads and size-checks the body, parses it with the route's zod schema, and
@@ -23,8 +69,11 @@ export function route<S extends z.ZodType | undefined = undefined>(
   return async (req: Request, context?: { params?: Promise<Record<string, string>> }): Promise<Response> => {
     try {
       const params = (await context?.params) ?? {};
+      if (WRITES.has(req.method) && options.crossSite !== "compute") assertSameOrigin(req);
+      assertCleanUrl(req, params);
       let body: unknown = undefined;
       if (options.body) {
+        assertJson(req);
         const text = await readBody(req, options.maxBytes ?? 1_000_000);
         let json: unknown;
         try {
@@ -32,6 +81,8 @@ export function route<S extends z.ZodType | undefined = undefined>(
         } catch {
           throw new ApiError(400, "invalid-json", "The request body is not valid JSON.");
         }
+        const bad = findBadText(json);
+        if (bad) throw new ApiError(400, "bad-text", `The field ${bad.path} ${bad.reason}. Remove it and send again.`, [{ path: bad.path, message: bad.reason }]);
         const parsed = options.body.safeParse(json);
         if (!parsed.success) {
           throw new ApiError(422, "invalid-request", "Some fields need fixing; see issues.", zodIssues(parsed.error));

@@ -53,3 +53,32 @@ export function assignableRoles(kind: OrgKind, byRole: string): Role[] {
   if (!can(byRole, "members.role") && !can(byRole, "members.invite")) return [];
   return (Object.keys(ROLE_LABELS[kind]) as Role[]).filter((r) => r !== "owner");
 }
+
+/**
+ * better-auth's own routes (under /api/auth) that Ampwright uses, and who may call them; every other route the
+ * library has (its organisation routes among them) answers 404, so this table decides them too. The library
+ * itself enforces "signed-in" on the routes marked so.
+ */
+export const AUTH_ROUTES = [
+  { method: "POST", path: "/sign-up/email", who: "anyone" },
+  { method: "POST", path: "/sign-in/email", who: "anyone" },
+  { method: "POST", path: "/sign-out", who: "signed-in" },
+  { method: "GET", path: "/get-session", who: "anyone" },
+  { method: "GET", path: "/verify-email", who: "anyone" },
+  { method: "POST", path: "/send-verification-email", who: "anyone" },
+  { method: "POST", path: "/request-password-reset", who: "anyone" },
+  { method: "GET", path: "/reset-password/:token", who: "anyone" },
+  { method: "POST", path: "/reset-password", who: "anyone" },
+  { method: "POST", path: "/change-password", who: "signed-in" },
+  { method: "POST", path: "/delete-user", who: "signed-in" },
+] as const satisfies readonly { method: "GET" | "POST"; path: string; who: "anyone" | "signed-in" }[];
+
+/** Whether a better-auth path (after /api/auth) is one Ampwright serves. */
+export function authRouteOpen(method: string, path: string): boolean {
+  const parts = path.replace(/\/+$/, "").split("/");
+  return AUTH_ROUTES.some((r) => {
+    if (r.method !== method) return false;
+    const want = r.path.split("/");
+    return want.length === parts.length && want.every((w, i) => (w.startsWith(":") ? parts[i].length > 0 : w === parts[i]));
+  });
+}

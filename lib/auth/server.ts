@@ -7,13 +7,38 @@ import { db } from "@/db";
 import { enqueueMail } from "@/db/queries/mail";
 import { deleteSoleOrganizations, sharedOwnedOrganizations } from "@/db/queries/accounts";
 import { createOrganization } from "@/db/queries/organizations";
-import { APIError } from "better-auth/api";
+import { APIError, createAuthMiddleware } from "better-auth/api";
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { kickMailWorker, startMailWorker } from "@/lib/mail/sender";
 import { resetMessage, verificationMessage } from "@/lib/mail/templates";
 import { PASSWORD_MIN } from "@/lib/validators/auth";
-import { abuseLimits } from "./abuse";
+import { safeLocalPath } from "@/lib/net/redirect";
+import { afterSignIn, enforceAbuseLimits } from "./abuse";
+
+/** A same-site path, or an absolute URL on APP_URL's origin. */
+function isLocalTarget(v: unknown): boolean {
+  if (typeof v !== "string") return false;
+  if (safeLocalPath(v, "") === v) return true;
+  try {
+    return new URL(v).origin === new URL(env().APP_URL).origin;
+  } catch {
+    return false;
+  }
+}
+
+/** Before every better-auth endpoint: the abuse limits, and a password change always ends the other sessions. */
+const beforeAuth = createAuthMiddleware(async (ctx) => {
+  // Links in mail and the page after sign-up may only lead back into Ampwright.
+  for (const source of [ctx.body, ctx.query] as (Record<string, unknown> | undefined)[]) {
+    for (const field of ["callbackURL", "redirectTo", "errorCallbackURL", "newUserCallbackURL"]) {
+      const v = source?.[field];
+      if (v !== undefined && !isLocalTarget(v)) throw new APIError("UNPROCESSABLE_ENTITY", { message: "That link would leave Ampwright; only pages of this site are allowed." });
+    }
+  }
+  if (ctx.path === "/change-password") return { context: { body: { ...(ctx.body ?? {}), revokeOtherSessions: true } } };
+  await enforceAbuseLimits(ctx);
+});
 
 const e = env();
 startMailWorker();
@@ -38,6 +63,8 @@ export const auth = betterAuth({
     requireEmailVerification: true,
     minPasswordLength: PASSWORD_MIN,
     resetPasswordTokenExpiresIn: 3600,
+    // A new password ends every session the old one opened (a stolen session dies with the reset).
+    revokeSessionsOnPasswordReset: true,
     sendResetPassword: async ({ user, url }) => {
       const m = resetMessage(user.name, url);
       await enqueueMail(db, { to: user.email, kind: "password-reset", ...m });
@@ -70,10 +97,11 @@ export const auth = betterAuth({
       },
     },
   },
-  session: { cookieCache: { enabled: true, maxAge: 60 } },
+  // No cookie cache: every request checks the session row, so signing out or a password change ends a session at once.
+  session: { cookieCache: { enabled: false } },
   // Ampwright's own limits (lib/auth/abuse.ts) replace the built-in address-only limiter.
   rateLimit: { enabled: false },
-  hooks: { before: abuseLimits },
+  hooks: { before: beforeAuth, after: afterSignIn },
   advanced: { useSecureCookies: e.APP_URL.startsWith("https://") },
   databaseHooks: {
     user: {
@@ -85,19 +113,7 @@ export const auth = betterAuth({
       },
     },
   },
-  disabledPaths: [
-    "/organization/create",
-    "/organization/update",
-    "/organization/delete",
-    "/organization/invite-member",
-    "/organization/cancel-invitation",
-    "/organization/accept-invitation",
-    "/organization/reject-invitation",
-    "/organization/remove-member",
-    "/organization/update-member-role",
-    "/organization/leave",
-    "/organization/add-member",
-  ],
+  // Only the paths in AUTH_ROUTES (lib/auth/permissions.ts) are reachable; app/api/auth answers 404 to the rest.
   plugins: [
     organizationPlugin({
       schema: { organization: { additionalFields: { kind: { type: "string", required: true, defaultValue: "shop", input: false } } } },

@@ -17,7 +17,29 @@ export function resetMessage(name: string, url: string): Message {
   return { subject: "Reset your Ampwright password", text: `${lines.join("\n\n")}\n\n${url}\n`, html: wrap(lines, { url, label: "Choose a new password" }) };
 }
 
-export function invitationMessage(p: { inviter: string; organization: string; roleLabel: string; url: string; days: number }): Message {
+/** Told to an account's owner when wrong passwords have locked it for a while. */
+export function signInLockedMessage(p: { name: string; failures: number; minutes: number; resetUrl: string }): Message {
+  const lines = [
+    `Hello ${p.name},`,
+    `Someone has tried to sign in to your Ampwright account with a wrong password ${p.failures} times in a row, so signing in with a password is paused for ${p.minutes} minutes.`,
+    "If it was you, wait and try again, or choose a new password with the link below. If it was not, choose a new password now: that also signs out every other session.",
+  ];
+  return { subject: "Sign-in to your Ampwright account is paused", text: `${lines.join("\n\n")}\n\n${p.resetUrl}\n`, html: wrap(lines, { url: p.resetUrl, label: "Choose a new password" }) };
+}
+
+/**
+ * A name someone typed, made safe to put in mail sent to a stranger: one line, at most `max` characters, and
+ * nothing a mail program would turn into a link ("example.com" becomes "example[.]com", "://" goes).
+ */
+export function inertName(name: string, max = 60): string {
+  let s = name.replace(/[\u0000-\u001f\u007f-\u009f]/g, " ").replace(/\s+/g, " ").trim();
+  s = s.replace(/:\/\//g, " ").replace(/([\p{L}\p{N}_-])\.(?=[\p{L}\p{N}_-])/gu, "$1[.]").replace(/@/g, " at ");
+  s = s.replace(/\s+/g, " ").trim();
+  return s.length > max ? `${s.slice(0, max - 1).trimEnd()}…` : s;
+}
+
+export function invitationMessage(raw: { inviter: string; organization: string; roleLabel: string; url: string; days: number }): Message {
+  const p = { ...raw, inviter: inertName(raw.inviter), organization: inertName(raw.organization) };
   const lines = [
     `${p.inviter} invites you to join ${p.organization} on Ampwright as ${p.roleLabel}.`,
     `Follow the link to accept; you can sign in or create an account on the way. The invitation expires in ${p.days} days.`,

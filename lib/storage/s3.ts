@@ -1,7 +1,8 @@
 import "server-only";
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, type S3Client } from "@aws-sdk/client-s3";
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, type S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
 import { env } from "@/lib/env";
+import { contentDisposition } from "@/lib/report/files";
 import { makeS3Client } from "./client";
 
 let client: S3Client | undefined;
@@ -25,35 +26,64 @@ export function presignUpload(key: string, contentType: string): Promise<string>
 
 /** A short-lived URL to read an object, with the name and type the browser should give it. */
 export function presignDownload(key: string, p: { fileName: string; contentType: string; inline: boolean }): Promise<string> {
-  const safe = p.fileName.replace(/["\\\r\n]/g, "_");
   return getSignedUrl(
     s3(),
     new GetObjectCommand({
       Bucket: bucket(),
       Key: key,
       ResponseContentType: p.contentType,
-      ResponseContentDisposition: `${p.inline ? "inline" : "attachment"}; filename="${safe}"`,
+      ResponseContentDisposition: contentDisposition(p.fileName, p.inline),
     }),
     { expiresIn: DOWNLOAD_URL_SECONDS },
   );
 }
 
-/** The stored size of an object, or undefined when there is none. */
-export async function objectSize(key: string): Promise<number | undefined> {
+/**
+ * An object's bytes, read until `maxBytes`: past that it stops reading and answers "too-large" with what it saw,
+ * so a file swapped for a larger one between a size check and the read cannot fill the server's memory.
+ */
+export async function readObjectLimited(key: string, maxBytes: number): Promise<{ bytes: Buffer } | { tooLarge: number } | { missing: true }> {
+  let res;
   try {
-    const head = await s3().send(new HeadObjectCommand({ Bucket: bucket(), Key: key }));
-    return head.ContentLength ?? 0;
+    res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
   } catch (err) {
-    const status = (err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
-    if (status === 404 || (err as { name?: string }).name === "NotFound" || (err as { name?: string }).name === "NoSuchKey") return undefined;
+    if (notFound(err)) return { missing: true };
+    throw err;
+  }
+  const declared = res.ContentLength ?? 0;
+  const body = res.Body as unknown as AsyncIterable<Uint8Array> & { destroy?: () => void };
+  if (declared > maxBytes) {
+    body.destroy?.();
+    return { tooLarge: declared };
+  }
+  const chunks: Buffer[] = [];
+  let size = 0;
+  for await (const chunk of body) {
+    size += chunk.byteLength;
+    if (size > maxBytes) {
+      body.destroy?.();
+      return { tooLarge: size };
+    }
+    chunks.push(Buffer.from(chunk));
+  }
+  return { bytes: Buffer.concat(chunks) };
+}
+
+/** An object as a stream for a response body, with its length. */
+export async function streamObject(key: string): Promise<{ body: ReadableStream; length?: number } | undefined> {
+  try {
+    const res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    return { body: res.Body!.transformToWebStream(), length: res.ContentLength };
+  } catch (err) {
+    if (notFound(err)) return undefined;
     throw err;
   }
 }
 
-/** An object's bytes (call objectSize first: this reads the whole object into memory). */
-export async function readObject(key: string): Promise<Buffer> {
-  const res = await s3().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
-  return Buffer.from(await res.Body!.transformToByteArray());
+function notFound(err: unknown): boolean {
+  const status = (err as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode;
+  const name = (err as { name?: string }).name;
+  return status === 404 || name === "NotFound" || name === "NoSuchKey";
 }
 
 export async function writeObject(key: string, body: Buffer, contentType: string): Promise<void> {

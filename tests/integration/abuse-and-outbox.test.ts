@@ -19,7 +19,7 @@ const signIn = (email: string, password: string, address: string) =>
   auth.handler(
     new Request(new URL("/api/auth/sign-in/email", base), {
       method: "POST",
-      headers: { origin: base, "content-type": "application/json", "x-forwarded-for": address },
+      headers: { origin: base, "content-type": "application/json", "x-ampwright-peer": address },
       body: JSON.stringify({ email, password }),
     }),
   );

@@ -81,6 +81,6 @@ describe("invitations by e-mail", () => {
       }),
     );
     expect(res.status).toBe(422);
-    expect((await res.json()).message).toMatch(/email: enter an e-mail address.*password: use at least 10 characters/);
+    expect((await res.json()).message).toMatch(/E-mail: enter an e-mail address.*Password: use at least 10 characters/);
   });
 });

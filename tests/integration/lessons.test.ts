@@ -59,7 +59,7 @@ describe("lessons: publish, open, copy, activity", () => {
     const put = await (circuitRoute.PUT as unknown as Handler)(
       new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/${circuitId}`, {
         method: "PUT",
-        headers: { "content-type": "application/json", "if-match": '"1"', cookie: who.lena },
+        headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", "if-match": '"1"', cookie: who.lena },
         body: JSON.stringify({ document: changed }),
       }),
       { params: Promise.resolve({ circuitId }) },

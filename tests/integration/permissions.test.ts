@@ -71,7 +71,8 @@ function rows(orgId: string, viewerMemberId: string): Row[] {
     {
       name: "POST invitation",
       handler: invitations.POST as Handler,
-      json: { email: `invitee-${orgId}@elsewhere.example`, role: "viewer" },
+      // One address per inviter: a second invitation to an address already waiting is refused (409).
+      json: (who: string) => ({ email: `invitee-${orgId}-${who.split("@")[0]}@elsewhere.example`, role: "viewer" }),
       expect: { owner: 201, lead: 201, technician: 403, student: 403, viewer: 403 },
     },
     { name: "PATCH member role", handler: member.PATCH as Handler, method: "PATCH", json: { role: "viewer" }, params: { memberId: viewerMemberId }, expect: { owner: 200, lead: 200, technician: 403, student: 403, viewer: 403 } },
@@ -107,15 +108,16 @@ describe("the permission table for organisation routes", () => {
         for (const p of insiders) {
           const want = (row.expect as Record<string, number>)[roleOf(p.email)];
           if (want === undefined) continue;
-          const res = await callRoute(row.handler, { method: row.method, json: row.json, params, cookie: cookies[p.email] });
+          const json = typeof row.json === "function" ? row.json(p.email) : row.json;
+          const res = await callRoute(row.handler, { method: row.method, json, params, cookie: cookies[p.email] });
           expect(res.status, `${p.role} ${p.email}`).toBe(want);
           if (want === 403) expect((await res.json()).error.code).toBe("forbidden");
         }
         for (const p of outsiders) {
-          const res = await callRoute(row.handler, { method: row.method, json: row.json, params, cookie: cookies[p.email] });
+          const res = await callRoute(row.handler, { method: row.method, json: typeof row.json === "function" ? row.json(p.email) : row.json, params, cookie: cookies[p.email] });
           expect(res.status, `outsider ${p.email}`).toBe(404);
         }
-        const anon = await callRoute(row.handler, { method: row.method, json: row.json, params });
+        const anon = await callRoute(row.handler, { method: row.method, json: typeof row.json === "function" ? row.json("anon@x") : row.json, params });
         expect(anon.status).toBe(401);
       });
     }
@@ -182,7 +184,7 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
   const putDoc = async (cookie: string | undefined, circuitId: string) => {
     const req = new Request(`${process.env.APP_URL ?? "http://127.0.0.1:3100"}/api/v1/circuits/x`, {
       method: "PUT",
-      headers: { "content-type": "application/json", "if-match": '"1"', ...(cookie ? { cookie } : {}) },
+      headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", "if-match": '"1"', ...(cookie ? { cookie } : {}) },
       body: JSON.stringify({ document: { ...doc, name: "Perm check, saved" } }),
     });
     return (circuitPut.PUT as unknown as Handler)(req, { params: Promise.resolve({ circuitId }) });

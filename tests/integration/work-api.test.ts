@@ -54,7 +54,7 @@ async function newCircuit(cookie: string, jobId: string, document: unknown = pic
 function put(circuitId: string, document: unknown, cookie: string, ifMatch?: string) {
   const req = new Request("http://127.0.0.1:3100/api/v1/circuits/x", {
     method: "PUT",
-    headers: { "content-type": "application/json", cookie, ...(ifMatch ? { "if-match": ifMatch } : {}) },
+    headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", cookie, ...(ifMatch ? { "if-match": ifMatch } : {}) },
     body: JSON.stringify({ document }),
   });
   return (circuitRoute.PUT as unknown as Handler)(req, { params: Promise.resolve({ circuitId }) });
@@ -103,7 +103,7 @@ describe("jobs", () => {
     expect(bad.status).toBe(422);
     const paths = (await bad.json()).error.issues.map((i: { path: string }) => i.path);
     expect(paths).toEqual(expect.arrayContaining(["title", "systemVoltage"]));
-    const req = new Request("http://127.0.0.1:3100/api/v1/jobs", { method: "POST", headers: { "content-type": "application/json", cookie: tech }, body: "{title:" });
+    const req = new Request("http://127.0.0.1:3100/api/v1/jobs", { method: "POST", headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", cookie: tech }, body: "{title:" });
     expect((await (jobsRoute.POST as unknown as Handler)(req, { params: Promise.resolve({}) })).status).toBe(400);
     const badQuery = await callRoute(h(jobsRoute.GET), { path: "/api/v1/jobs?sort=colour&limit=0", cookie: tech });
     expect(badQuery.status).toBe(422);
@@ -174,7 +174,7 @@ describe("circuits: versions, If-Match and history", () => {
 
     const badTag = new Request("http://127.0.0.1:3100/api/v1/circuits/x/restore", {
       method: "POST",
-      headers: { "content-type": "application/json", cookie: tech, "if-match": "W/1" },
+      headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", cookie: tech, "if-match": "W/1" },
       body: JSON.stringify({ version: 1 }),
     });
     expect((await (restoreRoute.POST as unknown as Handler)(badTag, { params: Promise.resolve({ circuitId: id }) })).status).toBe(400);

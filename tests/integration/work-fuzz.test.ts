@@ -38,7 +38,7 @@ afterAll(async () => {
 function send(handler: Handler, method: string, body: string, params: Record<string, string>, ifMatch?: string) {
   const req = new Request("http://127.0.0.1:3100/api/v1/fuzz", {
     method,
-    headers: { "content-type": "application/json", cookie, ...(ifMatch !== undefined ? { "if-match": ifMatch } : {}) },
+    headers: { origin: process.env.APP_URL ?? "http://127.0.0.1:3100", "content-type": "application/json", cookie, ...(ifMatch !== undefined ? { "if-match": ifMatch } : {}) },
     body,
   });
   return handler(req, { params: Promise.resolve(params) });

@@ -16,7 +16,7 @@ export async function signInCookie(email: string, password: string): Promise<str
   const res = await auth.handler(
     new Request(new URL("/api/auth/sign-in/email", base()), {
       method: "POST",
-      headers: { origin: base(), "content-type": "application/json", "x-forwarded-for": address },
+      headers: { origin: base(), "content-type": "application/json", "x-ampwright-peer": address },
       body: JSON.stringify({ email, password }),
     }),
   );

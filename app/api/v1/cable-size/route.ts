@@ -3,7 +3,7 @@ import { route } from "@/lib/api/route";
 import { cableSizeRequest } from "@/lib/validators/cable-size";
 
 // POST /api/v1/cable-size - the smallest cable and its fuse for a load (no sign-in)
-export const POST = route({ body: cableSizeRequest, maxBytes: 64_000 }, ({ body }) => {
+export const POST = route({ body: cableSizeRequest, maxBytes: 64_000, crossSite: "compute" }, ({ body }) => {
   const answer = sizeCable({ ...body, material: body.material as MaterialId, minSize: body.minSize });
   return Response.json(answer);
 });

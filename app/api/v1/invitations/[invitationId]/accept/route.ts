@@ -13,6 +13,6 @@ export const POST = userRoute({}, async ({ user, params }) => {
   if (inv.status === "canceled") throw new ApiError(410, "revoked", "This invitation was withdrawn. Ask for a new one.");
   if (inv.status === "accepted") return Response.json({ organizationId: inv.organizationId, already: true });
   if (inv.expired) throw new ApiError(410, "expired", "This invitation has expired. Ask for a new one.");
-  await acceptInvitation(db, { invitationId: inv.id, userId: user.id, organizationId: inv.organizationId, role: inv.role ?? "viewer" });
-  return Response.json({ organizationId: inv.organizationId });
+  const won = await acceptInvitation(db, { invitationId: inv.id, userId: user.id, organizationId: inv.organizationId, role: inv.role ?? "viewer" });
+  return Response.json({ organizationId: inv.organizationId, ...(won ? {} : { already: true }) });
 });

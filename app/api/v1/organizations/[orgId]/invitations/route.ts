@@ -1,5 +1,5 @@
 import { db } from "@/db";
-import { createInvitation, INVITATION_DAYS, listInvitations } from "@/db/queries/invitations";
+import { createInvitation, INVITATION_DAYS, INVITATION_LIMITS, listInvitations } from "@/db/queries/invitations";
 import { orgRoute } from "@/lib/api/authed";
 import { ApiError } from "@/lib/api/errors";
 import { assignableRoles, roleLabel, type OrgKind } from "@/lib/auth/permissions";
@@ -31,6 +31,14 @@ export const POST = orgRoute({ permission: "members.invite", body: inviteInput }
       ...invitationMessage({ inviter: user.name, organization: membership.name, roleLabel: label, url: `${env().APP_URL}/invitations/${id}`, days: INVITATION_DAYS }),
     }),
   });
+  if ("refused" in inv) {
+    if (inv.refused === "pending") {
+      throw new ApiError(409, "already-invited", `An invitation to ${body.email} is already waiting (sent ${inv.since.toISOString().slice(0, 10)}). Withdraw it first to send a new one.`);
+    }
+    const who = { sender: "you have sent", organization: `${membership.name} has sent`, recipient: "this address has received" }[inv.refused];
+    const max = { sender: INVITATION_LIMITS.perSenderPerDay, organization: INVITATION_LIMITS.perOrganizationPerDay, recipient: INVITATION_LIMITS.perRecipientPerDay }[inv.refused];
+    throw new ApiError(429, "too-many-invitations", `Invitations are limited: ${who} ${max} in the last 24 hours. Try again tomorrow.`);
+  }
   kickMailWorker();
   return Response.json({ invitation: { id: inv.id, email: body.email, role: body.role, roleLabel: label, expiresAt: inv.expiresAt } }, { status: 201 });
 });

@@ -1,0 +1,2 @@
+UPDATE "invitation" i SET "status" = 'canceled' WHERE i."status" = 'pending' AND EXISTS (SELECT 1 FROM "invitation" j WHERE j."organization_id" = i."organization_id" AND lower(j."email") = lower(i."email") AND j."status" = 'pending' AND (j."created_at", j."id") > (i."created_at", i."id"));--> statement-breakpoint
+CREATE UNIQUE INDEX "invitation_pending_uq" ON "invitation" USING btree ("organization_id",lower("email")) WHERE "invitation"."status" = 'pending';
