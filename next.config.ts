@@ -1,4 +1,5 @@
 import type { NextConfig } from "next";
+import { COMMON_SECURITY_HEADERS } from "./lib/net/security-headers";
 
 // The test run builds into its own folder so it never clobbers the build that `npm start` serves.
 const distDir = process.env.NEXT_DIST_DIR || ".next";
@@ -11,7 +12,10 @@ const nextConfig: NextConfig = {
   typescript: { tsconfigPath: "tsconfig.json" },
   // Shared links open without signing in: keep them out of search engines and out of shared caches.
   async headers() {
-    return [{ source: "/shared/:path*", headers: [{ key: "X-Robots-Tag", value: "noindex, nofollow" }, { key: "Referrer-Policy", value: "no-referrer" }, { key: "Cache-Control", value: "private, no-store" }] }];
+    return [
+      { source: "/:path*", headers: COMMON_SECURITY_HEADERS },
+      { source: "/shared/:path*", headers: [{ key: "X-Robots-Tag", value: "noindex, nofollow" }, { key: "Referrer-Policy", value: "no-referrer" }, { key: "Cache-Control", value: "private, no-store" }] },
+    ];
   },
 };
 

@@ -45,14 +45,20 @@ export async function publishLesson(
   p: { circuitId: string; organizationId: string; userId: string; title: string; brief: string; questions: LessonQuestion[]; document: CircuitDocument },
 ): Promise<{ lessonId: string; version: number; created: boolean }> {
   return db.transaction(async (tx) => {
-    const existing = await tx.select({ id: lessons.id, latestVersion: lessons.latestVersion }).from(lessons).where(eq(lessons.sourceCircuitId, p.circuitId)).for("update").limit(1);
-    const lessonId = existing[0]?.id ?? newId("lsn");
-    const version = existing[0] ? existing[0].latestVersion + 1 : 1;
-    if (existing[0]) await tx.update(lessons).set({ latestVersion: version, updatedAt: new Date() }).where(eq(lessons.id, lessonId));
-    else await tx.insert(lessons).values({ id: lessonId, organizationId: p.organizationId, sourceCircuitId: p.circuitId, latestVersion: 1, createdBy: p.userId });
+    // The lesson row is made once per circuit: of two publishes at once, the second waits here for the first and
+    // then adds the next version, so there is never a second lesson or a failed insert.
+    await tx
+      .insert(lessons)
+      .values({ id: newId("lsn"), organizationId: p.organizationId, sourceCircuitId: p.circuitId, latestVersion: 0, createdBy: p.userId })
+      .onConflictDoNothing({ target: lessons.sourceCircuitId });
+    const [row] = await tx.select({ id: lessons.id, latestVersion: lessons.latestVersion }).from(lessons).where(eq(lessons.sourceCircuitId, p.circuitId)).for("update").limit(1);
+    const lessonId = row.id;
+    const version = row.latestVersion + 1;
+    const created = version === 1;
+    await tx.update(lessons).set({ latestVersion: version, updatedAt: new Date() }).where(eq(lessons.id, lessonId));
     await tx.insert(lessonVersions).values({ lessonId, version, title: p.title, brief: p.brief, questions: p.questions, document: p.document, publishedBy: p.userId });
-    await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: existing[0] ? "lesson.republish" : "lesson.publish", entityType: "lesson", entityId: lessonId, detail: { title: p.title, version, circuitId: p.circuitId } });
-    return { lessonId, version, created: !existing[0] };
+    await audit(tx, { organizationId: p.organizationId, actorId: p.userId, action: created ? "lesson.publish" : "lesson.republish", entityType: "lesson", entityId: lessonId, detail: { title: p.title, version, circuitId: p.circuitId } });
+    return { lessonId, version, created };
   });
 }
 

@@ -177,9 +177,11 @@ export async function listJobs(db: Db, p: JobListParams) {
     const like = `%${p.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
     where.push(or(ilike(jobs.title, like), ilike(jobs.vehicle, like), ilike(jobs.complaint, like)));
   }
+  const byTime = p.sort === "updated" || p.sort === "created";
   if (p.after) {
     const [value, id] = p.after;
-    const v = p.sort === "updated" || p.sort === "created" ? new Date(value) : value;
+    // Timestamps are compared as PostgreSQL keeps them (microseconds): a cursor in milliseconds would repeat rows.
+    const v = byTime ? sql`${value}::timestamptz` : value;
     const cmp = p.dir === "asc" ? gt : lt;
     where.push(or(cmp(col, v), and(eq(col, v), cmp(jobs.id, id))));
   }
@@ -187,7 +189,7 @@ export async function listJobs(db: Db, p: JobListParams) {
   const circuitCount = db.$with("cc").as(db.select({ jobId: circuits.jobId, n: count().as("n") }).from(circuits).groupBy(circuits.jobId));
   const rows = await db
     .with(circuitCount)
-    .select({ ...jobColumns, circuitCount: sql<number>`coalesce(${circuitCount.n}, 0)::int` })
+    .select({ ...jobColumns, circuitCount: sql<number>`coalesce(${circuitCount.n}, 0)::int`, sortText: sql<string>`(${col})::text` })
     .from(jobs)
     .leftJoin(owner, eq(owner.id, jobs.ownerId))
     .leftJoin(editor, eq(editor.id, jobs.updatedBy))
@@ -195,12 +197,9 @@ export async function listJobs(db: Db, p: JobListParams) {
     .where(and(...where))
     .orderBy(...order)
     .limit(p.limit + 1);
-  const page = rows.slice(0, p.limit);
-  const last = page[page.length - 1];
-  const next =
-    rows.length > p.limit && last
-      ? ([p.sort === "updated" ? last.updatedAt.toISOString() : p.sort === "created" ? last.createdAt.toISOString() : String(last[p.sort]), last.id] as [string, string])
-      : undefined;
+  const page = rows.slice(0, p.limit).map(({ sortText: _, ...job }) => job);
+  const last = rows[page.length - 1];
+  const next = rows.length > p.limit && last ? ([last.sortText, last.id] as [string, string]) : undefined;
   return { jobs: page, next };
 }
 

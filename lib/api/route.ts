@@ -1,6 +1,7 @@
 import "server-only";
 import type { z } from "zod";
 import { env } from "@/lib/env";
+import { API_CSP } from "@/lib/net/security-headers";
 import { badTextReason, findBadText } from "@/lib/validators/text";
 import { ApiError, errorResponse, zodIssues } from "./errors";
 
@@ -89,13 +90,26 @@ export function route<S extends z.ZodType | undefined = undefined>(
         }
         body = parsed.data;
       }
-      return await handler({ req, body: body as never, params });
+      return withApiCsp(await handler({ req, body: body as never, params }));
     } catch (err) {
-      if (err instanceof ApiError) return errorResponse(err.status, err.code, err.message, err.issues);
+      if (err instanceof ApiError) return withApiCsp(errorResponse(err.status, err.code, err.message, err.issues));
       console.error("unhandled error in", req.method, new URL(req.url).pathname, err);
-      return errorResponse(500, "internal", "Something went wrong on the server. Nothing was changed; try again.");
+      return withApiCsp(errorResponse(500, "internal", "Something went wrong on the server. Nothing was changed; try again."));
     }
   };
+}
+
+/** API answers other than PDFs get a policy that lets nothing in them run (a route may set its own). */
+function withApiCsp(res: Response): Response {
+  const type = res.headers.get("content-type") ?? "";
+  if (!res.headers.has("content-security-policy") && !type.startsWith("application/pdf")) {
+    try {
+      res.headers.set("content-security-policy", API_CSP);
+    } catch {
+      // a response whose headers cannot change (a fetched one passed through) keeps its own
+    }
+  }
+  return res;
 }
 
 /** The URL's query string parsed with a zod schema; 422 with the failing parameters otherwise. */

@@ -1,4 +1,5 @@
 import "server-only";
+import { badTextReason } from "@/lib/validators/text";
 import { ApiError } from "./errors";
 
 /** A strong entity tag of a circuit version, as RFC 9110 writes it: "7". */
@@ -23,11 +24,23 @@ export function encodeCursor(after: [string, string]): string {
   return Buffer.from(JSON.stringify(after)).toString("base64url");
 }
 
-export function decodeCursor(cursor: string | undefined): [string, string] | undefined {
+/** A timestamp as PostgreSQL writes timestamptz as text (microseconds kept), or as ISO 8601. */
+const TIMESTAMP_TEXT = /^\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}:\d{2}(\.\d{1,6})?(Z|[+-]\d{2}(:?\d{2})?)$/;
+
+/**
+ * A cursor this list gave out, checked before any of it reaches the database: two strings, an id that looks like
+ * one, and a sort value of the sort's own kind (a timestamp for date sorts). Anything else is 422.
+ */
+export function decodeCursor(cursor: string | undefined, kind: "timestamp" | "text" = "text"): [string, string] | undefined {
   if (!cursor) return undefined;
   try {
     const v = JSON.parse(Buffer.from(cursor, "base64url").toString("utf8")) as unknown;
-    if (Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === "string")) return v as [string, string];
+    if (Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === "string")) {
+      const [value, id] = v as [string, string];
+      const idOk = /^[A-Za-z0-9_.:-]{1,100}$/.test(id);
+      const valueOk = kind === "timestamp" ? TIMESTAMP_TEXT.test(value) && !Number.isNaN(Date.parse(value.replace(" ", "T"))) : value.length <= 500 && badTextReason(value) === undefined;
+      if (idOk && valueOk) return [value, id];
+    }
   } catch {
     // fall through to the error below
   }

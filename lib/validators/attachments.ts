@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idText, plainText } from "./text";
 
 /** Largest file Ampwright keeps: a phone photo or a scanned PDF fits well inside it. */
 export const MAX_ATTACHMENT_BYTES = 15 * 1024 * 1024;
@@ -18,7 +19,7 @@ export const isAttachmentType = (t: string): t is AttachmentType => t in ATTACHM
 const allowed = Object.keys(ATTACHMENT_TYPES).join(", ");
 
 export const startUploadInput = z.strictObject({
-  fileName: z.string({ error: "fileName must be text" }).trim().min(1, "give the file a name").max(200, "fileName is at most 200 characters"),
+  fileName: plainText("fileName", 200).min(1, "give the file a name"),
   contentType: z.string({ error: "contentType must be text" }).refine(isAttachmentType, { message: `attach a photo or a PDF (one of ${allowed})` }),
   sizeBytes: z
     .number({ error: "sizeBytes must be the file's size in bytes" })
@@ -26,6 +27,6 @@ export const startUploadInput = z.strictObject({
     .min(1, "the file is empty")
     .max(MAX_ATTACHMENT_BYTES, `files are at most 15 MB; shrink the photo or split the PDF`),
   /** A reading of this job the file is evidence for. */
-  readingId: z.string().min(1).max(100).optional(),
+  readingId: idText("readingId").optional(),
 });
 export type StartUploadInput = z.input<typeof startUploadInput>;

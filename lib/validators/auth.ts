@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { plainText } from "./text";
 
 export const PASSWORD_MIN = 10;
 
@@ -6,7 +7,7 @@ const email = z.string().trim().toLowerCase().email("enter an e-mail address suc
 const password = z.string().min(PASSWORD_MIN, `use at least ${PASSWORD_MIN} characters`).max(128, "at most 128 characters");
 
 /** Shared by the sign-up form and the server. */
-export const signUpInput = z.object({ name: z.string().trim().min(1, "enter your name").max(80, "at most 80 characters"), email, password });
+export const signUpInput = z.object({ name: plainText("name", 80).min(1, "enter your name"), email, password });
 export const signInInput = z.object({ email, password: z.string().min(1, "enter your password") });
 export const forgotPasswordInput = z.object({ email });
 export const resetPasswordInput = z

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { plainText } from "./text";
 import { MATERIAL_IDS, findSize } from "@/lib/conductors";
 
 const positive = (what: string) => z.number({ error: `${what} must be a number` }).finite().positive(`${what} must be more than 0`);
@@ -51,7 +52,7 @@ export type CableSizeRequest = z.infer<typeof cableSizeRequest>;
 
 /** POST /api/v1/jobs/:jobId/sizings: a sizing to keep with a job. The answer is worked out again on the server. */
 export const saveSizingInput = z.strictObject({
-  title: z.string().trim().min(1, "give the sizing a title, e.g. Winch feed").max(120, "keep the title under 120 characters"),
+  title: plainText("title", 120).min(1, "give the sizing a title, e.g. Winch feed"),
   // What was typed on the sizing page, so the saved sizing reopens as it was.
   inputs: z
     .record(z.string().regex(/^[a-zA-Z]{1,30}$/, "input names are letters only"), z.string().max(40, "an input is at most 40 characters"))

@@ -1,6 +1,7 @@
 import { z } from "zod";
+import { PG_INT_MAX, plainText } from "./text";
 
-const text = (name: string, max: number) => z.string({ error: `${name} must be text` }).trim().max(max, `${name} is at most ${max} characters`);
+const text = plainText;
 
 /** Publishing a circuit to a class as a lesson, or republishing it as a new snapshot. */
 export const publishLessonInput = z.strictObject({
@@ -15,5 +16,5 @@ export type PublishLessonInput = z.input<typeof publishLessonInput>;
 
 /** Which snapshot of a lesson to open; the latest when not given. */
 export const lessonVersionQuery = z.strictObject({
-  version: z.coerce.number({ error: "version must be a whole number" }).int("version must be a whole number").min(1, "versions start at 1").optional(),
+  version: z.coerce.number({ error: "version must be a whole number" }).int("version must be a whole number").min(1, "versions start at 1").max(PG_INT_MAX, "no lesson has that many versions").optional(),
 });

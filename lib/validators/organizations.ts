@@ -1,8 +1,9 @@
 import { z } from "zod";
+import { plainText } from "./text";
 import { ROLES } from "@/lib/auth/permissions";
 
 export const createOrganizationInput = z.strictObject({
-  name: z.string().trim().min(2, "give it a name of at least 2 characters").max(100, "at most 100 characters"),
+  name: plainText("name", 100).min(2, "give it a name of at least 2 characters"),
   kind: z.enum(["shop", "class"], { error: 'kind is "shop" or "class"' }),
 });
 export const renameOrganizationInput = createOrganizationInput.pick({ name: true });

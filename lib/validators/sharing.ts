@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idText, plainText } from "./text";
 
 export const SHARE_MAX_DAYS = 365;
 
@@ -10,8 +11,8 @@ const days = z
 
 export const createShareLinkInput = z.strictObject({
   /** Share one circuit of the job instead of the whole job. */
-  circuitId: z.string().min(1).max(100).optional(),
-  label: z.string({ error: "label must be text" }).trim().max(200, "label is at most 200 characters").default(""),
+  circuitId: idText("circuitId").optional(),
+  label: plainText("label", 200).default(""),
   /** Days until the link stops working; null or left out for a link that lasts until revoked. */
   expiresInDays: days.nullable().default(null),
 });
@@ -19,7 +20,7 @@ export type CreateShareLinkInput = z.input<typeof createShareLinkInput>;
 
 export const emailReportInput = z.strictObject({
   to: z.string({ error: "to must be an e-mail address" }).trim().toLowerCase().email("enter an e-mail address such as name@shop.example"),
-  message: z.string({ error: "message must be text" }).trim().max(2000, "message is at most 2000 characters").default(""),
+  message: plainText("message", 2000).default(""),
   /** Also make a read-only link to the report that lasts this many days (none when left out). */
   linkDays: days.nullable().default(null),
 });

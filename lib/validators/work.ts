@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { idText, PG_INT_MAX, plainText } from "./text";
 import { loadCircuit, type CircuitDocument } from "@/lib/circuit";
 
 /** Largest body the work routes take (a circuit document of a few thousand components fits). */
@@ -11,11 +12,11 @@ import { JOB_STATUSES } from "./job-status";
 export { JOB_STATUSES, type JobStatus } from "./job-status";
 export const jobStatus = z.enum(JOB_STATUSES, { error: `status is one of ${JOB_STATUSES.join(", ")}` });
 
-const text = (what: string, max: number) => z.string({ error: `${what} must be text` }).trim().max(max, `${what} is at most ${max} characters`);
+const text = plainText;
 
 export const createJobInput = z.strictObject({
   /** The shop or class the job belongs to; defaults to the one the user is working in. */
-  organizationId: z.string().min(1).max(100).optional(),
+  organizationId: idText("organizationId").optional(),
   title: text("title", 200).min(2, "give the job a title of at least 2 characters (e.g. \"Battery light at idle\")"),
   vehicle: text("vehicle", 500).default(""),
   systemVoltage: z
@@ -44,13 +45,13 @@ export type UpdateJobInput = z.input<typeof updateJobInput>;
 
 export const JOB_SORTS = ["updated", "created", "title", "status"] as const;
 export const listJobsQuery = z.strictObject({
-  organizationId: z.string().min(1).max(100).optional(),
-  q: z.string().trim().max(200).optional(),
+  organizationId: idText("organizationId").optional(),
+  q: plainText("q", 200).optional(),
   status: jobStatus.optional(),
   sort: z.enum(JOB_SORTS, { error: `sort is one of ${JOB_SORTS.join(", ")}` }).default("updated"),
   dir: z.enum(["asc", "desc"]).optional(),
   limit: z.coerce.number({ error: "limit must be a whole number" }).int().min(1).max(100).default(25),
-  cursor: z.string().max(500).optional(),
+  cursor: z.string().max(500).regex(/^[A-Za-z0-9_-]*$/, "cursor is not one this list gave out").optional(),
 });
 export type ListJobsQuery = z.infer<typeof listJobsQuery>;
 
@@ -84,15 +85,21 @@ export const replaceCircuitInput = z.strictObject({
   message: text("message", 500).optional(),
 });
 export const restoreCircuitInput = z.strictObject({
-  version: z.number({ error: "version must be a whole number" }).int().min(1, "versions start at 1"),
+  version: z.number({ error: "version must be a whole number" }).int().min(1, "versions start at 1").max(PG_INT_MAX, "no circuit has that many versions"),
   message: text("message", 500).optional(),
 });
+
+/** When a reading was taken: a date and time from 2000 up to a day ahead of the server's clock (time zones). */
+const readingTime = z.iso
+  .datetime({ offset: true, error: "takenAt is a date and time such as 2026-12-02T09:30:00Z" })
+  .refine((v) => Date.parse(v) >= Date.UTC(2000, 0, 1), { message: "takenAt is before 2000; check the date" })
+  .refine((v) => Date.parse(v) <= Date.now() + 86_400_000, { message: "takenAt is in the future; check the date" });
 
 const terminal = z
   .string({ error: 'a probe point is a terminal written "<component id>.<terminal>", like "B1.pos"' })
   .regex(/^[A-Za-z0-9_-]+\.[a-z]+$/, 'a probe point is a terminal written "<component id>.<terminal>", like "B1.pos"');
 export const createReadingInput = z.strictObject({
-  stateId: z.string().min(1).max(64).default("base"),
+  stateId: plainText("stateId", 64).min(1).default("base"),
   /** Where the red (positive) lead touched. */
   positive: terminal,
   /** Where the black (negative) lead touched. */
@@ -101,7 +108,7 @@ export const createReadingInput = z.strictObject({
   unit: z.enum(["V", "mV"], { error: 'unit is "V" or "mV"' }).default("V"),
   currentA: z.number({ error: "currentA must be a number of amperes" }).finite().min(-5000).max(5000).nullable().optional(),
   note: text("note", 2000).default(""),
-  takenAt: z.iso.datetime({ offset: true, error: "takenAt is a date and time such as 2026-12-02T09:30:00Z" }).optional(),
+  takenAt: readingTime.optional(),
 });
 export const updateReadingInput = z
   .strictObject({
@@ -125,7 +132,7 @@ export const importInput = z.union([
   z.strictObject({
     format: z.literal(EXPORT_FORMAT),
     exportedAt: z.string().max(100).optional(),
-    circuit: z.strictObject({ name: text("name", 200).optional(), version: z.number().int().optional(), document: circuitDocumentField }),
+    circuit: z.strictObject({ name: text("name", 200).optional(), version: z.number().int().min(1).max(PG_INT_MAX).optional(), document: circuitDocumentField }),
     readings: z.array(exportedReading).max(10_000).default([]),
   }),
   z.strictObject({ document: circuitDocumentField }),

@@ -23,7 +23,7 @@ export const GET = userRoute({}, async ({ req, user }) => {
     sort: q.sort,
     dir,
     limit: q.limit,
-    after: decodeCursor(q.cursor),
+    after: decodeCursor(q.cursor, q.sort === "updated" || q.sort === "created" ? "timestamp" : "text"),
   });
   return Response.json({
     organization: { id: membership.organizationId, name: membership.name, kind: membership.kind, role: membership.role },
