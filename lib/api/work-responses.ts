@@ -27,6 +27,14 @@ export function encodeCursor(after: [string, string]): string {
 /** A timestamp as PostgreSQL writes timestamptz as text (microseconds kept), or as ISO 8601. */
 const TIMESTAMP_TEXT = /^\d{4}-\d{2}-\d{2}[ T]\d{2}:\d{2}:\d{2}(\.\d{1,6})?(Z|[+-]\d{2}(:?\d{2})?)$/;
 
+/** A timestamp text whose date and time exist (PostgreSQL refuses 30 February; a query must never reach that). */
+function realTimestamp(value: string): boolean {
+  if (!TIMESTAMP_TEXT.test(value)) return false;
+  const [y, mo, d, h, mi, s] = value.split(/[-T :.+Z]/).map(Number);
+  const t = new Date(Date.UTC(y, mo - 1, d, h, mi, s));
+  return y >= 1 && t.getUTCFullYear() === y && t.getUTCMonth() === mo - 1 && t.getUTCDate() === d && h < 24 && mi < 60 && s < 60;
+}
+
 /**
  * A cursor this list gave out, checked before any of it reaches the database: two strings, an id that looks like
  * one, and a sort value of the sort's own kind (a timestamp for date sorts). Anything else is 422.
@@ -38,7 +46,7 @@ export function decodeCursor(cursor: string | undefined, kind: "timestamp" | "te
     if (Array.isArray(v) && v.length === 2 && v.every((x) => typeof x === "string")) {
       const [value, id] = v as [string, string];
       const idOk = /^[A-Za-z0-9_.:-]{1,100}$/.test(id);
-      const valueOk = kind === "timestamp" ? TIMESTAMP_TEXT.test(value) && !Number.isNaN(Date.parse(value.replace(" ", "T"))) : value.length <= 500 && badTextReason(value) === undefined;
+      const valueOk = kind === "timestamp" ? realTimestamp(value) : value.length <= 500 && badTextReason(value) === undefined;
       if (idOk && valueOk) return [value, id];
     }
   } catch {

@@ -27,7 +27,7 @@ export const LIMITS: Record<string, Limit> = {
   "/send-verification-email": { max: 5, windowS: 600 },
 };
 export const ADDRESS_LIMITS: Record<string, Limit> = {
-  "/sign-in/email": { max: 30, windowS: 600 },
+  "/sign-in/email": { max: 60, windowS: 600 },
   "/sign-up/email": { max: 10, windowS: 3600 },
   "/request-password-reset": { max: 10, windowS: 600 },
   "/send-verification-email": { max: 10, windowS: 600 },

@@ -39,11 +39,15 @@ import * as readingsCsv from "@/app/api/v1/circuits/[circuitId]/readings.csv/rou
 import * as resultsCsv from "@/app/api/v1/circuits/[circuitId]/results.csv/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
+import * as authRoute from "@/app/api/auth/[...all]/route";
+import { auth } from "@/lib/auth/server";
+import { AUTH_ROUTES, authRouteOpen } from "@/lib/auth/permissions";
 import { callRoute, removeTestJobs, signInCookie } from "../support/sessions";
 
 type Handler = Parameters<typeof callRoute>[0];
 const pool = new Pool({ connectionString: process.env.DATABASE_URL });
 const cookies: Record<string, string> = {};
+const RUN = Date.now().toString(36);
 const roleOf = (email: string) => demoPeople.find((p) => p.email === email)!.role;
 
 beforeAll(async () => {
@@ -72,7 +76,7 @@ function rows(orgId: string, viewerMemberId: string): Row[] {
       name: "POST invitation",
       handler: invitations.POST as Handler,
       // One address per inviter: a second invitation to an address already waiting is refused (409).
-      json: (who: string) => ({ email: `invitee-${orgId}-${who.split("@")[0]}@elsewhere.example`, role: "viewer" }),
+      json: (who: string) => ({ email: `invitee-${orgId}-${who.split("@")[0]}-${RUN}@elsewhere.example`, role: "viewer" }),
       expect: { owner: 201, lead: 201, technician: 403, student: 403, viewer: 403 },
     },
     { name: "PATCH member role", handler: member.PATCH as Handler, method: "PATCH", json: { role: "viewer" }, params: { memberId: viewerMemberId }, expect: { owner: 200, lead: 200, technician: 403, student: 403, viewer: 403 } },
@@ -326,5 +330,34 @@ describe("the permission table for lessons", () => {
   }
   afterAll(async () => {
     await pool.query("delete from lessons where id <> 'lsn_demo_bench'");
+  });
+});
+
+describe("the permission table for better-auth's own routes (AUTH_ROUTES)", () => {
+  const base = process.env.APP_URL ?? "http://127.0.0.1:3100";
+  const endpoints = Object.values(auth.api as Record<string, { path?: string; options?: { method?: string | string[] } }>)
+    .filter((e) => typeof e?.path === "string")
+    .flatMap((e) => [e.options?.method ?? "GET"].flat().map((m) => ({ method: m as "GET" | "POST", path: e.path!.replace(/:\w+/g, "x1") })))
+    .filter((e) => e.method === "GET" || e.method === "POST");
+
+  it("answers 404 to every route not in the table, for every role and signed out", async () => {
+    const closed = endpoints.filter((e) => !authRouteOpen(e.method, e.path));
+    // The organisation plugin's routes among them: none may say whether an organisation exists or who is in it.
+    expect(closed.filter((e) => e.path.startsWith("/organization/")).length).toBeGreaterThan(15);
+    for (const e of closed) {
+      for (const cookie of [...Object.values(cookies), undefined]) {
+        const req = new Request(new URL(`/api/auth${e.path}?organizationId=${demoShop.id}`, base), {
+          method: e.method,
+          headers: { origin: base, "content-type": "application/json", ...(cookie ? { cookie } : {}) },
+          body: e.method === "POST" ? JSON.stringify({ organizationId: demoShop.id, slug: "larkspur-road", email: "x@y.example" }) : undefined,
+        });
+        const res = await (e.method === "GET" ? authRoute.GET(req) : authRoute.POST(req));
+        expect(res.status, `${e.method} ${e.path}`).toBe(404);
+      }
+    }
+  });
+
+  it("lists only routes the library has", () => {
+    for (const r of AUTH_ROUTES) expect(endpoints.some((e) => e.method === r.method && authRouteOpen(r.method, e.path)), `${r.method} ${r.path}`).toBe(true);
   });
 });

@@ -156,4 +156,61 @@ describe("photos and files on a job", () => {
     const audit = await pool.query("select action from audit_events where entity_id = $1 and action like 'attachment.%' order by id", [jobId]);
     expect(audit.rows.map((r) => r.action)).toContain("attachment.remove");
   });
+
+  it("a replayed upload URL cannot change a checked file: the URL writes a staging key nothing serves", async () => {
+    const bytes = await photo(64, 48, "jpeg");
+    const { id, done, url } = await upload("checked.jpg", bytes, "image/jpeg");
+    expect(done.status).toBe(200);
+    const elf = Buffer.concat([Buffer.from([0x7f, 0x45, 0x4c, 0x46, 0x02, 0x01, 0x01, 0x00]), Buffer.alloc(2048, 1)]);
+    // The stand-in store takes the second PUT (the URL has not expired) ...
+    expect((await fetch(url, { method: "PUT", headers: { "content-type": "image/jpeg" }, body: new Uint8Array(elf) })).status).toBe(200);
+    // ... finishing again changes nothing, and the file anyone opens is still the checked photo.
+    expect((await callRoute(h(completeRoute.POST), { method: "POST", params: { attachmentId: id }, cookie: tech })).status).toBe(200);
+    const opened = await openFile(id);
+    expect(opened.status).toBe(302);
+    const got = Buffer.from(await (await fetch(opened.headers.get("location")!)).arrayBuffer());
+    expect(got.equals(bytes)).toBe(true);
+    const { rows } = await pool.query("select object_key from attachments where id = $1", [id]);
+    expect(rows[0].object_key).toMatch(/^files\//);
+    expect(new URL(url).pathname).toContain("/staging/");
+  });
+
+  it("refuses a PDF that would run a script or a program, even with its names escaped, and keeps a plain one as a download", async () => {
+    const pdf = (body: string) => Buffer.from(`%PDF-1.4\n1 0 obj\n<< /Type /Catalog ${body} >>\nendobj\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`, "latin1");
+    for (const [name, body] of [
+      ["script.pdf", "/OpenAction << /S /JavaScript /JS (app.alert(1)) >>"],
+      ["escaped.pdf", "/OpenAction << /S /J#61vaScript /J#53 (app.alert(1)) >>"],
+      ["launch.pdf", "/OpenAction << /S /Launch /F (calc.exe) >>"],
+    ] as const) {
+      const { id, done } = await upload(name, pdf(body), "application/pdf");
+      expect(done.status, name).toBe(422);
+      const err = (await done.json()).error;
+      expect(err.code).toBe("active-pdf");
+      expect(err.message).toContain(name);
+      expect((await pool.query("select 1 from attachments where id = $1", [id])).rowCount).toBe(0);
+    }
+    const plain = pdf("/Pages 2 0 R");
+    const { id, done } = await upload("Prüfbericht Batterie.pdf", plain, "application/pdf");
+    expect(done.status).toBe(200);
+    const res = await openFile(id);
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toBe("application/pdf");
+    expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(res.headers.get("content-disposition")).toBe(`attachment; filename="Prufbericht Batterie.pdf"; filename*=UTF-8''Pr%C3%BCfbericht%20Batterie.pdf`);
+    expect(res.headers.get("content-security-policy")).toContain("sandbox");
+    expect(Buffer.from(await res.arrayBuffer()).equals(plain)).toBe(true);
+  });
+
+  it("opens photos whose names are not ASCII", async () => {
+    const bytes = await photo(32, 24, "png");
+    const { id, done } = await upload("Spannung am Anlasser – 9,6 V.png", bytes, "image/png");
+    expect(done.status).toBe(200);
+    for (const q of ["", "?download=1", "?variant=thumbnail"]) {
+      const opened = await openFile(id, q);
+      expect(opened.status, q).toBe(302);
+      const res = await fetch(opened.headers.get("location")!);
+      expect(res.status, q).toBe(200);
+      expect(res.headers.get("content-disposition"), q).toContain("filename*=UTF-8''Spannung%20am%20Anlasser%20%E2%80%93%209%2C6%20V.png");
+    }
+  });
 });

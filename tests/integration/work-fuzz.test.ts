@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import path from "node:path";
 import fc from "fast-check";
 import { Pool } from "pg";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -118,4 +120,85 @@ describe("random bodies to every write route", () => {
       );
     });
   }
+});
+
+/** Every route module under app/api/v1, with the names of its path parameters. */
+function allRoutes(): { file: string; params: string[] }[] {
+  const root = path.resolve("app/api/v1");
+  const out: { file: string; params: string[] }[] = [];
+  const walk = (dir: string) => {
+    for (const e of fs.readdirSync(dir, { withFileTypes: true })) {
+      const p = path.join(dir, e.name);
+      if (e.isDirectory()) walk(p);
+      else if (e.name === "route.ts") out.push({ file: p, params: [...path.relative(root, p).matchAll(/\[(\w+)\]/g)].map((m) => m[1]) });
+    }
+  };
+  walk(root);
+  return out;
+}
+
+const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
+
+describe("every route, every method: characters that cannot be stored and numbers past their columns", () => {
+  it("answers 400 to a NUL or broken character in a path id, a query value or a body, and changes nothing", async () => {
+    const before = await counts();
+    let calls = 0;
+    for (const { file, params } of allRoutes()) {
+      const mod = (await import(file)) as Record<string, unknown>;
+      for (const method of METHODS) {
+        const handler = mod[method] as Handler | undefined;
+        if (!handler) continue;
+        const where = `${method} ${path.relative("app/api/v1", file)}`;
+        const writes = method !== "GET";
+        const call = (query: string, ids: Record<string, string>, body?: string) =>
+          handler(
+            new Request(`http://127.0.0.1:3100/api/v1/fuzz${query}`, {
+              method,
+              headers: { origin: "http://127.0.0.1:3100", "content-type": "application/json", cookie },
+              body: writes ? (body ?? "{}") : undefined,
+            }),
+            { params: Promise.resolve(ids) },
+          );
+        for (const bad of ["id\u0000x", "id\ud800x"]) {
+          if (params.length) {
+            const res = await call("", Object.fromEntries(params.map((p) => [p, bad])));
+            expect(res.status, `${where} with a bad id`).toBe(400);
+            calls++;
+          }
+          const ids = Object.fromEntries(params.map((p) => [p, "nope"]));
+          // In a URL a NUL arrives as %00; a broken character cannot (URL parsing turns its bytes into U+FFFD).
+          const q = await call(bad.includes("\u0000") ? "?q=%00" : "?q=%ED%A0%80", ids);
+          if (bad.includes("\u0000")) expect(q.status, `${where} with a NUL in the query`).toBe(400);
+          else expect(q.status, `${where} with undecodable bytes in the query`).toBeLessThan(500);
+          calls++;
+          if (writes) {
+            const b = await call("", ids, JSON.stringify({ title: bad, name: bad, note: bad, document: { name: bad } }));
+            expect(b.status, `${where} with a bad body`).toBeLessThan(500);
+            calls++;
+          }
+        }
+      }
+    }
+    expect(calls).toBeGreaterThan(100);
+    expect(await counts()).toEqual(before);
+  });
+
+  it("answers 422, never 500, to integers past PostgreSQL's and dates it cannot store", async () => {
+    const before = await counts();
+    const huge = [2 ** 31, 2 ** 53, 1e300, -(2 ** 31) - 1];
+    for (const version of huge) {
+      const res = await send(restoreRoute.POST as unknown as Handler, "POST", JSON.stringify({ version }), { circuitId });
+      expect(res.status, String(version)).toBe(422);
+    }
+    const list = await jobsRoute.GET(
+      new Request("http://127.0.0.1:3100/api/v1/jobs?limit=99999999999999999999", { headers: { cookie } }) as never,
+      { params: Promise.resolve({}) } as never,
+    );
+    expect(list.status).toBe(422);
+    for (const takenAt of ["0000-01-01T00:00:00Z", "9999-12-31T23:59:59Z", "+275760-09-13T00:00:00Z", "2026-02-30T00:00:00Z"]) {
+      const res = await send(readingRoute.PATCH as unknown as Handler, "PATCH", JSON.stringify({ takenAt }), { readingId });
+      expect(res.status, takenAt).toBe(422);
+    }
+    expect(await counts()).toEqual(before);
+  });
 });
