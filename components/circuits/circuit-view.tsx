@@ -321,7 +321,6 @@ function ReadingForm({ circuit }: { circuit: Circuit }) {
   });
   const errors = form.formState.errors;
   const select = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-2 py-2";
-  const optional = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
   return (
     <form
       className={`${box} mt-4 grid gap-3 p-4 sm:grid-cols-2 lg:grid-cols-4`}
@@ -363,7 +362,7 @@ function ReadingForm({ circuit }: { circuit: Circuit }) {
       <div className="grid grid-cols-[1fr_auto] gap-2">
         <label className="text-sm font-medium">
           Meter shows
-          <input type="number" step="any" inputMode="decimal" className={select} {...form.register("value", { setValueAs: optional })} data-testid="reading-value" />
+          <input type="text" inputMode="decimal" autoComplete="off" className={select} {...form.register("value")} data-testid="reading-value" />
           {errors.value ? <span className="text-over" role="alert">{errors.value.message}</span> : null}
         </label>
         <label className="text-sm font-medium">
@@ -376,7 +375,7 @@ function ReadingForm({ circuit }: { circuit: Circuit }) {
       </div>
       <label className="text-sm font-medium">
         Clamp meter, A (optional)
-        <input type="number" step="any" inputMode="decimal" className={select} {...form.register("currentA", { setValueAs: optional })} data-testid="reading-current" />
+        <input type="text" inputMode="decimal" autoComplete="off" className={select} {...form.register("currentA")} data-testid="reading-current" />
         {errors.currentA ? <span className="text-over">{errors.currentA.message}</span> : null}
       </label>
       <label className="text-sm font-medium sm:col-span-2">

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import { useForm } from "react-hook-form";
 import { z } from "zod";
+import { typedNumber } from "@/lib/units/number";
 import { stateName, terminalLabel } from "@/components/circuits/describe";
 import { IssueList } from "@/components/jobs/job-detail";
 import { SafetyNote } from "@/components/ui/safety-note";
@@ -185,15 +186,14 @@ function Verdict({ verdict, doc, circuitId, canEdit }: { verdict: PlanVerdict; d
 }
 
 const readingValue = z.object({
-  value: z.number({ error: "type the meter's reading in volts, e.g. 0.42" }).finite().min(-1000, "at most 1000 V either way").max(1000, "at most 1000 V either way"),
-  currentA: z.number({ error: "the clamp reading is a number of amperes" }).finite().min(0, "a clamp reading is positive").max(5000, "at most 5000 A").optional(),
+  value: typedNumber(z.number({ error: "type the meter's reading in volts, e.g. 0.42 (or 0,42)" }).finite().min(-1000, "at most 1000 V either way").max(1000, "at most 1000 V either way")),
+  currentA: typedNumber(z.number({ error: "the clamp reading is a number of amperes" }).finite().min(0, "a clamp reading is positive").max(5000, "at most 5000 A").optional()),
 });
 
 /** The meter's reading for one check (and the clamp meter's current, if taken), recorded on the circuit. */
 function RecordReading(p: { circuitId: string; positive: string; negative: string; stateId: string; note: string; again: boolean }) {
   const create = useCreateReading(p.circuitId);
   const form = useForm<z.input<typeof readingValue>, unknown, z.output<typeof readingValue>>({ resolver: zodResolver(readingValue) });
-  const num = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
   const errors = form.formState.errors;
   const input = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2 text-base";
   return (
@@ -210,11 +210,11 @@ function RecordReading(p: { circuitId: string; positive: string; negative: strin
     >
       <label className="text-sm font-medium">
         Meter, V
-        <input type="number" step="any" inputMode="decimal" className={input} {...form.register("value", { setValueAs: num })} aria-invalid={errors.value ? true : undefined} data-testid="plan-value" />
+        <input type="text" inputMode="decimal" autoComplete="off" className={input} {...form.register("value")} aria-invalid={errors.value ? true : undefined} data-testid="plan-value" />
       </label>
       <label className="text-sm font-medium">
         Clamp, A <span className="font-normal text-graphite-500">(optional)</span>
-        <input type="number" step="any" inputMode="decimal" className={input} {...form.register("currentA", { setValueAs: num })} data-testid="plan-current" />
+        <input type="text" inputMode="decimal" autoComplete="off" className={input} {...form.register("currentA")} data-testid="plan-current" />
       </label>
       <button type="submit" disabled={create.isPending} className="rounded-md bg-copper-600 px-4 py-2 font-semibold text-white hover:bg-copper-700 disabled:opacity-60" data-testid="plan-save">
         {p.again ? "Record again" : "Record"}

@@ -19,7 +19,6 @@ export function LimitsForm({ orgId, canEdit, limits, own, updated }: Props) {
     onSuccess: () => router.refresh(),
   });
   const form = useForm<DiagnosisLimitsInput>({ resolver: zodResolver(diagnosisLimitsInput), defaultValues: { limits: own } });
-  const num = (v: unknown) => (v === "" || v === null || v === undefined ? undefined : Number(v));
   const errors = form.formState.errors.limits as Record<string, { message?: string }> | undefined;
   return (
     <form
@@ -57,12 +56,12 @@ export function LimitsForm({ orgId, canEdit, limits, own, updated }: Props) {
                 {canEdit ? (
                   <input
                     id={`limit-${f.key}`}
-                    type="number"
-                    step="any"
+                    type="text"
                     inputMode="decimal"
+                    autoComplete="off"
                     placeholder={String(f.default)}
                     className="w-28 rounded-md border border-graphite-300 bg-white px-2 py-1"
-                    {...form.register(`limits.${f.key}`, { setValueAs: num })}
+                    {...form.register(`limits.${f.key}`, { setValueAs: (v: unknown) => (v === "" ? undefined : v) })}
                     data-testid={`limit-${f.key}`}
                   />
                 ) : (

@@ -57,9 +57,9 @@ export function QuickCheck() {
                 <span className="font-medium text-graphite-800">{f.label}</span>
                 <span className="mt-1 flex items-stretch overflow-hidden rounded-md border border-graphite-300 bg-white focus-within:border-copper-500">
                   <input
-                    type="number"
+                    type="text"
                     inputMode="decimal"
-                    step={f.step}
+                    autoComplete="off"
                     aria-invalid={err ? true : undefined}
                     className="w-full min-w-0 px-3 py-2 font-mono outline-none"
                     data-testid={`qc-${f.name}`}

@@ -1,20 +1,21 @@
 import { z } from "zod";
+import { typedNumber } from "@/lib/units/number";
 import { SIZE_LABELS } from "@/lib/conductors/sizes";
 import { CIRCUIT_SCHEMA_V1, type CircuitDocument } from "./schema";
 
 /** The start page's cranking check: one battery, a positive and a ground cable, a joint on each, a starter. */
 export const quickCheckInput = z.object({
-  restingVolts: z.coerce.number({ error: "resting voltage must be a number of volts" }).min(10, "a 12 V battery below 10 V at rest is flat: charge it first").max(13.5, "above 13.5 V the battery is not at rest (surface charge): turn on the headlamps for a minute, then measure"),
-  internalMilliohm: z.coerce.number({ error: "internal resistance must be a number" }).min(1, "at least 1 mOhm").max(100, "at most 100 mOhm"),
+  restingVolts: typedNumber(z.number({ error: "resting voltage must be a number of volts" }).min(10, "a 12 V battery below 10 V at rest is flat: charge it first").max(13.5, "above 13.5 V the battery is not at rest (surface charge): turn on the headlamps for a minute, then measure")),
+  internalMilliohm: typedNumber(z.number({ error: "internal resistance must be a number" }).min(1, "at least 1 mOhm").max(100, "at most 100 mOhm")),
   positiveSize: z.enum(SIZE_LABELS as [string, ...string[]], { error: "choose a cable size" }),
-  positiveLengthM: z.coerce.number({ error: "length must be a number of metres" }).positive("length must be more than 0").max(20, "at most 20 m"),
-  positiveJointMilliohm: z.coerce.number({ error: "joint resistance must be a number" }).min(0, "cannot be negative").max(1000, "at most 1000 mOhm"),
+  positiveLengthM: typedNumber(z.number({ error: "length must be a number of metres" }).positive("length must be more than 0").max(20, "at most 20 m")),
+  positiveJointMilliohm: typedNumber(z.number({ error: "joint resistance must be a number" }).min(0, "cannot be negative").max(1000, "at most 1000 mOhm")),
   groundSize: z.enum(SIZE_LABELS as [string, ...string[]], { error: "choose a cable size" }),
-  groundLengthM: z.coerce.number({ error: "length must be a number of metres" }).positive("length must be more than 0").max(20, "at most 20 m"),
-  groundJointMilliohm: z.coerce.number({ error: "joint resistance must be a number" }).min(0, "cannot be negative").max(1000, "at most 1000 mOhm"),
-  starterAmps: z.coerce.number({ error: "starter current must be a number of amperes" }).positive("starter current must be more than 0").max(2000, "at most 2000 A"),
+  groundLengthM: typedNumber(z.number({ error: "length must be a number of metres" }).positive("length must be more than 0").max(20, "at most 20 m")),
+  groundJointMilliohm: typedNumber(z.number({ error: "joint resistance must be a number" }).min(0, "cannot be negative").max(1000, "at most 1000 mOhm")),
+  starterAmps: typedNumber(z.number({ error: "starter current must be a number of amperes" }).positive("starter current must be more than 0").max(2000, "at most 2000 A")),
 });
-export type QuickCheckInput = z.infer<typeof quickCheckInput>;
+export type QuickCheckInput = z.output<typeof quickCheckInput>;
 
 export const quickCheckDefaults: QuickCheckInput = {
   restingVolts: 12.6,

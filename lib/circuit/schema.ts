@@ -11,7 +11,7 @@ const id = z
   .max(64, "ids are at most 64 characters")
   .regex(/^[A-Za-z0-9_-]+$/, "ids use letters, digits, _ and - only (no dots or spaces)");
 const volts = (what: string) => z.number({ error: `${what} must be a number of volts` }).finite();
-const nonNegOhm = (what: string) => z.number({ error: `${what} must be a number of ohms` }).finite().min(0, `${what} cannot be negative`);
+const nonNegOhm = (what: string) => z.number({ error: `${what} must be a number of ohms` }).finite().min(0, `${what} can't be negative`);
 const amps = (what: string) => z.number({ error: `${what} must be a number of amperes` }).finite();
 
 const base = {
@@ -23,23 +23,23 @@ const base = {
 export const batterySchema = z.strictObject({
   ...base,
   kind: z.literal("battery"),
-  openCircuitVoltage: volts("openCircuitVoltage").min(0).max(1000),
-  internalResistance: nonNegOhm("internalResistance"),
-  capacityAh: z.number().finite().positive().optional(),
-  cca: z.number().finite().positive().optional(),
+  openCircuitVoltage: volts("Open-circuit voltage").min(0, "Open-circuit voltage can't be negative").max(1000, "Open-circuit voltage is at most 1000 V"),
+  internalResistance: nonNegOhm("Internal resistance"),
+  capacityAh: z.number({ error: "Capacity must be a number of ampere-hours" }).finite().positive("Capacity must be more than 0 Ah").optional(),
+  cca: z.number({ error: "CCA must be a number of amperes" }).finite().positive("CCA must be more than 0 A").optional(),
 });
 export const alternatorSchema = z.strictObject({
   ...base,
   kind: z.literal("alternator"),
-  regulatedVoltage: volts("regulatedVoltage").positive().max(1000),
-  ratedCurrent: amps("ratedCurrent").min(0),
+  regulatedVoltage: volts("Regulated voltage").positive("Regulated voltage must be more than 0 V").max(1000, "Regulated voltage is at most 1000 V"),
+  ratedCurrent: amps("Rated current").min(0, "Rated current can't be negative"),
   enabled: z.boolean().optional(),
 });
 export const starterSchema = z
   .strictObject({
     ...base,
     kind: z.literal("starter"),
-    current: amps("current").min(0).optional(),
+    current: amps("Current").min(0, "Current can't be negative").optional(),
     resistance: z.number().finite().positive("resistance must be more than 0 ohm").optional(),
     enabled: z.boolean().optional(),
   })
@@ -52,11 +52,11 @@ export const loadSchema = z
     ...base,
     kind: z.literal("load"),
     mode: z.enum(["current", "power", "resistance"]),
-    value: z.number({ error: "value must be a number" }).finite().min(0, "value cannot be negative"),
+    value: z.number({ error: "The load's value must be a number" }).finite().min(0, "The load's value can't be negative"),
     enabled: z.boolean().optional(),
   })
   .refine((l) => l.mode !== "resistance" || l.value > 0, { message: "a resistance load needs a value above 0 ohm", path: ["value"] });
-export const fuseSchema = z.strictObject({ ...base, kind: z.literal("fuse"), rating: amps("rating").positive(), resistance: nonNegOhm("resistance") });
+export const fuseSchema = z.strictObject({ ...base, kind: z.literal("fuse"), rating: amps("Rating").positive("Rating must be more than 0 A"), resistance: nonNegOhm("Resistance") });
 export const switchSchema = z.strictObject({
   ...base,
   kind: z.literal("switch"),
@@ -105,14 +105,14 @@ export const wireSchema = z
     label: z.string().max(200).optional(),
     size: z.enum(SIZE_LABELS as [string, ...string[]], { error: 'size must be one of "20 AWG" ... "4/0 AWG" or "0.5 mm2" ... "120 mm2"' }).optional(),
     material: z.enum(MATERIAL_IDS as [string, ...string[]]).optional(),
-    lengthM: z.number().finite().min(0, "lengthM cannot be negative").max(1000).optional(),
-    resistanceOhm: nonNegOhm("resistanceOhm").optional(),
-    insulationRatingC: z.number().finite().min(60).max(250).optional(),
-    bundleSize: z.number().int().min(1).max(200).optional(),
+    lengthM: z.number({ error: "Length must be a number of metres" }).finite().min(0, "Length can't be negative").max(1000, "Length is at most 1000 m").optional(),
+    resistanceOhm: nonNegOhm("Resistance").optional(),
+    insulationRatingC: z.number({ error: "Insulation rating must be a number of degrees C" }).finite().min(60, "Insulation rating is at least 60 C").max(250, "Insulation rating is at most 250 C").optional(),
+    bundleSize: z.number({ error: "Bundle must be a whole number of cables" }).int("Bundle must be a whole number of cables").min(1, "Bundle is at least 1 cable").max(200, "Bundle is at most 200 cables").optional(),
     zone: z.enum(["cabin", "engine", "underbody"]).optional(),
   })
   .refine((w) => w.resistanceOhm !== undefined || (w.size !== undefined && w.lengthM !== undefined), {
-    message: "a wire needs size and lengthM (or an explicit resistanceOhm for a strap, frame rail or engine block)",
+    message: "A cable needs a size and a length (or a resistance of its own, for a strap, frame rail or engine block)",
     path: ["size"],
   });
 
@@ -126,7 +126,7 @@ export const circuitSchemaV1 = z.strictObject({
   schema: z.literal(CIRCUIT_SCHEMA_V1),
   name: z.string().min(1, "give the circuit a name").max(200),
   systemVoltage: z.number().finite().positive().max(1000),
-  ambientC: z.number().finite().min(-60).max(150).optional(),
+  ambientC: z.number({ error: "Ambient must be a number of degrees C" }).finite().min(-60, "Ambient is at least -60 C").max(150, "Ambient is at most 150 C").optional(),
   conductorTemp: z.union([z.enum(["ambient", "rated"]), z.number().finite().min(-60).max(250)]).optional(),
   components: z.array(componentSchema),
   wires: z.array(wireSchema),

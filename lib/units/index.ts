@@ -1,4 +1,7 @@
-import { create, all, type Unit } from "mathjs";
+import { create, all } from "mathjs";
+import { parseDecimal } from "./number";
+
+export { parseDecimal, typedNumber, type ParsedNumber } from "./number";
 
 /** One mathjs instance for the whole app, with the trade's units it lacks (circular mil, kcmil). */
 export const math = create(all, {});
@@ -22,7 +25,6 @@ const SI: Record<Quantity, string> = {
 function normalise(text: string): string {
   return text
     .trim()
-    .replace(/,/g, "")
     .replace(/Ω/g, "ohm")
     .replace(/\b(m|k|u|µ)?ohms?\b/gi, (_m, p: string | undefined) => `${p ? (p === "µ" ? "u" : p) : ""}ohm`)
     .replace(/°\s*([CF])\b/g, "deg$1")
@@ -41,17 +43,47 @@ export type ParsedQuantity = { ok: true; value: number } | { ok: false; message:
  */
 export function parseQuantity(text: string, quantity: Quantity, defaultUnit = SI[quantity]): ParsedQuantity {
   const t = normalise(text);
-  if (t === "") return { ok: false, message: `Enter a ${quantity}, for example ${example(quantity)}.` };
+  if (t === "") return { ok: false, message: `Enter a ${NAMES[quantity]}, for example ${example(quantity)}.` };
+  if (quantity === "length") {
+    const compound = compoundImperial(t);
+    if (compound) return compound;
+  }
+  // The number is read by parseDecimal (a decimal comma is fine, "1,500" is asked about); the rest is the unit.
+  const m = /^([+-]?[\d.,\u2212]*\d[\d.,]*(?:[eE][+-]?\d+)?)\s*(.*)$/.exec(t);
+  if (!m) return { ok: false, message: `"${text.trim()}" is not a ${NAMES[quantity]}. Type a number and a unit, for example ${example(quantity)}.` };
+  const n = parseDecimal(m[1]);
+  if (!n.ok) return { ok: false, message: n.message };
   try {
-    const n = Number(t);
-    const u: Unit = Number.isFinite(n) ? math.unit(n, normalise(defaultUnit)) : math.unit(t);
-    const value = u.toNumber(SI[quantity]);
+    const unit = m[2].trim() === "" ? normalise(defaultUnit) : m[2].trim();
+    const value = math.unit(n.value, unit).toNumber(SI[quantity]);
     if (!Number.isFinite(value)) throw new Error("not finite");
     return { ok: true, value };
   } catch {
-    return { ok: false, message: `"${text}" is not a ${quantity}. Type a number and a unit, for example ${example(quantity)}.` };
+    return { ok: false, message: `"${text.trim()}" is not a ${NAMES[quantity]}. Type a number and a unit, for example ${example(quantity)}.` };
   }
 }
+
+/** "5 ft 6 in", "5' 6\"", "5ft6in": feet and inches together, in metres. */
+function compoundImperial(t: string): ParsedQuantity | undefined {
+  const m = /^([\d.,]+)\s*(?:ft|foot|feet|')\s*([\d.,]+)\s*(?:in|inch|inches|")$/i.exec(t);
+  if (!m) return undefined;
+  const ft = parseDecimal(m[1]);
+  const inch = parseDecimal(m[2]);
+  if (!ft.ok) return { ok: false, message: ft.message };
+  if (!inch.ok) return { ok: false, message: inch.message };
+  return { ok: true, value: toSI(ft.value, "length", "ft") + toSI(inch.value, "length", "inch") };
+}
+
+const NAMES: Record<Quantity, string> = {
+  length: "length",
+  current: "current",
+  voltage: "voltage",
+  resistance: "resistance",
+  temperature: "temperature",
+  time: "time",
+  power: "power",
+  area: "cross-section",
+};
 
 /** Converts an SI value to another unit of the same quantity. */
 export function fromSI(value: number, quantity: Quantity, unit: string): number {

@@ -1,9 +1,10 @@
 import { z } from "zod";
+import { typedNumber } from "@/lib/units/number";
 import { LIMIT_FIELDS } from "@/lib/diagnosis/limits";
 
 const field = (f: (typeof LIMIT_FIELDS)[number]) =>
   z
-    .number({ error: `${f.key} must be a number of ${f.unit === "%" ? "percent" : "volts"}` })
+    .number({ error: `${f.label} must be a number of ${f.unit === "%" ? "percent" : "volts"}` })
     .finite()
     .min(f.min, `${f.label}: at least ${f.min} ${f.unit}`)
     .max(f.max, `${f.label}: at most ${f.max} ${f.unit}`);
@@ -14,7 +15,7 @@ const field = (f: (typeof LIMIT_FIELDS)[number]) =>
  */
 export const diagnosisLimitsInput = z
   .strictObject({
-    limits: z.strictObject(Object.fromEntries(LIMIT_FIELDS.map((f) => [f.key, field(f).optional()])) as { [K in (typeof LIMIT_FIELDS)[number]["key"]]: z.ZodOptional<z.ZodNumber> }),
+    limits: z.strictObject(Object.fromEntries(LIMIT_FIELDS.map((f) => [f.key, typedNumber(field(f).optional())])) as unknown as { [K in (typeof LIMIT_FIELDS)[number]["key"]]: z.ZodOptional<z.ZodType<number, unknown>> }),
   })
   .refine((v) => (v.limits.chargingLowV ?? 13.5) < (v.limits.chargingHighV ?? 14.8), {
     message: "the charging window's low end must be below its high end",

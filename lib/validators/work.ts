@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { typedNumber } from "@/lib/units/number";
 import { idText, PG_INT_MAX, plainText } from "./text";
 import { loadCircuit, type CircuitDocument } from "@/lib/circuit";
 
@@ -104,9 +105,9 @@ export const createReadingInput = z.strictObject({
   positive: terminal,
   /** Where the black (negative) lead touched. */
   negative: terminal,
-  value: z.number({ error: "value must be the number the meter showed" }).finite().min(-2000).max(2000),
+  value: typedNumber(z.number({ error: "value must be the number the meter showed" }).finite().min(-2000, "a reading is at most 2000 either way").max(2000, "a reading is at most 2000 either way")),
   unit: z.enum(["V", "mV"], { error: 'unit is "V" or "mV"' }).default("V"),
-  currentA: z.number({ error: "currentA must be a number of amperes" }).finite().min(-5000).max(5000).nullable().optional(),
+  currentA: typedNumber(z.number({ error: "the clamp reading must be a number of amperes" }).finite().min(-5000, "a clamp reading is at most 5000 A either way").max(5000, "a clamp reading is at most 5000 A either way").nullable().optional()),
   note: text("note", 2000).default(""),
   takenAt: readingTime.optional(),
 });
@@ -117,7 +118,7 @@ export const updateReadingInput = z
     negative: terminal,
     value: createReadingInput.shape.value,
     unit: z.enum(["V", "mV"], { error: 'unit is "V" or "mV"' }),
-    currentA: createReadingInput.shape.currentA.unwrap(),
+    currentA: createReadingInput.shape.currentA,
     note: text("note", 2000),
     takenAt: createReadingInput.shape.takenAt.unwrap(),
   })
