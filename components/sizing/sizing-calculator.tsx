@@ -2,12 +2,15 @@
 
 import { InsulationOptions } from "./insulation-options";
 import { useDeferredValue, useEffect, useMemo, useState } from "react";
-import { describeProtection, sizeCable, type SizingAnswer } from "@/lib/conductors";
+import { MATERIAL_IDS, MATERIALS, sizeCable, type Governing, type SizingAnswer } from "@/lib/conductors";
+import { DeviceCurveChart } from "./device-curve-chart";
 import { inputsFromQuery, parseSizingInputs as parse, queryFromInputs, SIZING_DEFAULTS as initial, type SizingInputs as Inputs } from "@/lib/conductors/sizing-form";
 import { DropChart } from "./drop-chart";
 import { SaveSizing } from "./save-sizing";
 
 const input = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2";
+
+const FAILS_ON: Record<Governing, string> = { drop: "voltage drop", ampacity: "heat", protection: "no device fits", "minimum-size": "too small to handle" };
 
 /** The upfitter's quick cable and fuse sizing: computed in the browser as the values are typed. */
 export function SizingCalculator() {
@@ -45,8 +48,9 @@ export function SizingCalculator() {
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.3fr)]">
       <form className="min-w-0 space-y-4 self-start rounded-lg border border-graphite-100 bg-paper-raised p-5" onSubmit={(e) => e.preventDefault()} data-testid="size-form">
         <div className="grid gap-4 sm:grid-cols-2">
-          {text("current", "Load current (peak)", "any unit: 20 A, 1500 mA")}
-          {text("length", "Run length, one way", "any unit: 6 m, 18 ft")}
+          {text("current", "Load (peak current or power)", "20 A, 1500 mA, or 1500 W")}
+          {text("length", "Run length, one way", "any unit: 6 m, 18 ft, 5 ft 6 in")}
+          {parsed.ok && parsed.request.powerW !== undefined ? text("efficiency", "Efficiency", "an inverter about 90 %; lamps and heaters 100 %") : null}
           <label className="block text-sm">
             <span className="font-medium text-graphite-800">System</span>
             <select className={input} value={v.systemVoltage} onChange={set("systemVoltage")} data-testid="size-systemVoltage">
@@ -90,7 +94,24 @@ export function SizingCalculator() {
               <option value="chassis">Through the chassis</option>
             </select>
           </label>
-          {v.returnPath === "chassis" ? text("returnResistance", "Chassis return resistance", "the frame and its joints: 5 mOhm") : null}
+          {v.returnPath === "chassis" ? text("returnResistance", "Chassis return", "measured: 0.12 V at 80 A, or 1.5 mOhm; empty: 1 mOhm (common practice)") : null}
+          <label className="block text-sm">
+            <span className="font-medium text-graphite-800">Conductor</span>
+            <select className={input} value={v.material} onChange={set("material")} data-testid="size-material">
+              {MATERIAL_IDS.map((m) => (
+                <option key={m} value={m}>
+                  {MATERIALS[m].name}
+                </option>
+              ))}
+            </select>
+          </label>
+          <label className="block text-sm">
+            <span className="font-medium text-graphite-800">Protect with</span>
+            <select className={input} value={v.device} onChange={set("device")} data-testid="size-device">
+              <option value="fuse">A fuse (blade or bolt-in)</option>
+              <option value="breaker">A circuit breaker (SAE J553)</option>
+            </select>
+          </label>
           <label className="block text-sm">
             <span className="font-medium text-graphite-800">Duty</span>
             <select className={input} value={v.duty} onChange={set("duty")} data-testid="size-duty">
@@ -104,6 +125,7 @@ export function SizingCalculator() {
               {text("period", "In every", "10 min")}
             </>
           ) : null}
+          {text("inrush", "Start-up surge (optional)", "a motor's inrush: 600 A for 0.5 s")}
         </div>
       </form>
 
@@ -121,7 +143,7 @@ export function SizingCalculator() {
                   </p>
                   {answer.protection ? (
                     <p className="mt-2 text-lg" data-testid="size-protection">
-                      {describeProtection(answer.protection)}
+                      {answer.protection.name}
                     </p>
                   ) : null}
                   <p className="mt-2 text-sm text-graphite-300" data-testid="size-reason">
@@ -156,17 +178,18 @@ export function SizingCalculator() {
                       <td className="px-3 py-1.5 text-right font-mono">
                         {c.ampacityA.toFixed(0)} A{c.derived ? "*" : ""}
                       </td>
-                      <td className="px-3 py-1.5 text-graphite-700">{c.ok ? (c.size === answer.recommended?.size ? "chosen" : "") : (c.governing ?? "")}</td>
+                      <td className="px-3 py-1.5 text-graphite-700">{c.ok ? (c.size === answer.recommended?.size ? "chosen" : "") : c.governing ? FAILS_ON[c.governing] : ""}</td>
                     </tr>
                   ))}
                 </tbody>
               </table>
               <p className="px-3 py-2 text-xs text-graphite-500">
-                * not a row of 33 CFR 183.425 Table 5; interpolated in circular mils. &ldquo;May carry&rdquo; is the table value after the ambient and bundle
-                factors.
+                * not a row of 33 CFR 183.425 Table 5; interpolated in circular mils. &ldquo;May carry&rdquo; is the table value after the ambient, bundle and
+                material factors. Ampacity basis: {answer.ampacityBasis}.
               </p>
             </div>
             {plotted ? <DropChart answer={plotted} /> : null}
+            {plotted ? <DeviceCurveChart answer={plotted} /> : null}
             <SaveSizing
               inputs={Object.fromEntries(new URLSearchParams(queryFromInputs(v)))}
               request={parsed.ok ? parsed.request : null}

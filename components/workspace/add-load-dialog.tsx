@@ -7,6 +7,7 @@ import { SafetyNote } from "@/components/ui/safety-note";
 import type { CircuitDocument } from "@/lib/circuit";
 import type { Duty } from "@/lib/conductors";
 import { solveCircuit } from "@/lib/solver";
+import { LOAD_DEFAULTS, parseEfficiency, parseLoad } from "@/lib/conductors/sizing-form";
 import { parseQuantity } from "@/lib/units";
 import { planAddedLoad, tapChoices, type AddLoadInput, type AddLoadPlan } from "@/lib/workspace/add-load";
 import { supplyRow } from "@/lib/workspace/supply";
@@ -16,6 +17,7 @@ type Values = {
   tap: string;
   ground: string;
   demand: string;
+  efficiency: string;
   duty: "continuous" | "intermittent";
   onTime: string;
   period: string;
@@ -41,13 +43,17 @@ function read(v: Values): Read {
     return r.ok ? r.value : 0;
   };
   // The load's draw: a current ("150 A", or a plain number in A) or a power ("1500 W", "1.5 kW").
+  // The same reading of the load as the sizing page's.
   let demand: AddLoadInput["demand"] = { mode: "current", value: 0 };
-  const asCurrent = parseQuantity(v.demand, "current", "A");
-  const asPower = parseQuantity(v.demand, "power", "W");
-  if (asCurrent.ok) demand = { mode: "current", value: asCurrent.value };
-  else if (asPower.ok) demand = { mode: "power", value: asPower.value };
-  else errors.demand = "a current (150 A) or a power (1500 W)";
-  if (!errors.demand && !(demand.value > 0)) errors.demand = "must be more than 0";
+  let efficiency: number | undefined;
+  const load = parseLoad(v.demand);
+  if (!load.ok) errors.demand = load.message;
+  else if (load.powerW !== undefined) {
+    demand = { mode: "power", value: load.powerW };
+    const e = parseEfficiency(v.efficiency);
+    if (!e.ok) errors.efficiency = e.message;
+    else efficiency = e.value;
+  } else demand = { mode: "current", value: load.currentA ?? 0 };
   const feedLengthM = positive("feedLength", "length", "m");
   const groundLengthM = positive("groundLength", "length", "m");
   let duty: Duty = { kind: "continuous" };
@@ -62,7 +68,7 @@ function read(v: Values): Read {
   if (Object.keys(errors).length) return { ok: false, errors };
   return {
     ok: true,
-    input: { label: v.label.trim(), tap: v.tap, ground: v.ground, demand, duty, feedLengthM, groundLengthM, zone: v.zone, insulation: v.insulation, family: v.family, circuitClass: v.circuitClass, fromState: v.fromState, stateName: v.stateName },
+    input: { label: v.label.trim(), tap: v.tap, ground: v.ground, demand, efficiency, duty, feedLengthM, groundLengthM, zone: v.zone, insulation: v.insulation, family: v.family, circuitClass: v.circuitClass, fromState: v.fromState, stateName: v.stateName },
   };
 }
 
@@ -81,15 +87,16 @@ export function AddLoadDialog(props: { doc: CircuitDocument; currentState: strin
       tap: choices.tap[0]?.ref ?? "",
       ground: choices.ground.find((g) => g.ref.endsWith(".t"))?.ref ?? choices.ground[0]?.ref ?? "",
       demand: "150 A",
+      efficiency: LOAD_DEFAULTS.efficiency,
       duty: "intermittent",
       onTime: "1 min",
       period: "10 min",
       feedLength: "4 m",
       groundLength: "4 m",
-      zone: "underbody",
-      insulation: "SGX",
-      family: "awg",
-      circuitClass: "non-critical",
+      zone: LOAD_DEFAULTS.zone,
+      insulation: LOAD_DEFAULTS.insulation,
+      family: LOAD_DEFAULTS.family,
+      circuitClass: LOAD_DEFAULTS.circuitClass,
       fromState: props.currentState !== "base" ? props.currentState : (charging ?? "base"),
       stateName: "Winch pulling",
     },
@@ -149,6 +156,14 @@ export function AddLoadDialog(props: { doc: CircuitDocument; currentState: strin
               <span className="mt-0.5 block text-xs text-graphite-500">a current (150 A) or a power (1500 W)</span>
               {err("demand")}
             </label>
+            {parseLoad(values.demand ?? "").ok && (parseLoad(values.demand ?? "") as { powerW?: number }).powerW !== undefined ? (
+              <label className="block text-sm">
+                <span className="font-medium">Efficiency</span>
+                <input {...form.register("efficiency")} className={`${field} font-mono`} data-testid="load-efficiency" />
+                <span className="mt-0.5 block text-xs text-graphite-500">an inverter about 90 %; lamps and heaters 100 %</span>
+                {err("efficiency")}
+              </label>
+            ) : null}
             <label className="block text-sm">
               <span className="font-medium">Takes power from</span>
               <select {...form.register("tap")} className={field} data-testid="load-tap">

@@ -1,3 +1,4 @@
+import { MATERIALS, type MaterialId } from "./materials";
 import { findSize, type ConductorSize } from "./sizes";
 
 /**
@@ -67,10 +68,16 @@ export const ZONE_AMBIENT_C = { cabin: 30, underbody: 40, engine: 50 } as const;
 export type Zone = keyof typeof ZONE_AMBIENT_C;
 
 /**
- * Ambient correction, the square-root rule of NFPA 70 310.15(B)(1): I' = I sqrt((Tc - Ta) / (Tc - 30)).
- * Above 1 below 30 degrees C, as the code's table prints; 0 at or above the insulation rating.
+ * Ambient correction, the square-root rule of NFPA 70 310.15(B)(1): I' = I sqrt((Tc - Ta) / (Tc - 30)); 0 at or
+ * above the insulation rating. Never above 1: Table 5 prints no correction for ambients below its 30 C basis, so no
+ * credit is taken for the cold (a cable routed in winter also runs in summer).
  */
 export function ambientFactor(insulationRatingC: number, ambientC: number): number {
+  return Math.min(1, squareRootRule(insulationRatingC, ambientC));
+}
+
+/** The square-root rule itself, I'/I = sqrt((Tc - Ta) / (Tc - 30)), uncapped (NFPA 70 prints it above 1 below 30 C). */
+export function squareRootRule(insulationRatingC: number, ambientC: number): number {
   if (ambientC >= insulationRatingC) return 0;
   return Math.sqrt((insulationRatingC - ambientC) / (insulationRatingC - TABLE5_BASIS_C));
 }
@@ -84,18 +91,20 @@ export function bundleFactor(conductorsInBundle: number): number {
   return 1;
 }
 
-export type DeratedAmpacity = TableAmpacity & { ambientFactor: number; bundleFactor: number; ampacityA: number };
+export type DeratedAmpacity = TableAmpacity & { ambientFactor: number; bundleFactor: number; materialFactor: number; ampacityA: number };
 
-/** Table ampacity corrected for ambient and bundling. */
+/** Table ampacity (copper) corrected for ambient, bundling and the conductor's material (equal heating). */
 export function deratedAmpacity(
   size: ConductorSize,
   insulationRatingC: number,
   ambientC: number,
   bundleSize: number,
+  material: MaterialId = "copper",
 ): DeratedAmpacity | undefined {
   const base = tableAmpacity(size, insulationRatingC);
   if (!base) return undefined;
   const af = ambientFactor(base.columnC, ambientC);
   const bf = bundleFactor(bundleSize);
-  return { ...base, ambientFactor: af, bundleFactor: bf, ampacityA: base.amps * af * bf };
+  const mf = MATERIALS[material].ampacityFactor;
+  return { ...base, ambientFactor: af, bundleFactor: bf, materialFactor: mf, ampacityA: base.amps * af * bf * mf };
 }

@@ -1,4 +1,5 @@
 export * from "./ampacity";
+export * from "./devices";
 export * from "./insulation";
 export * from "./materials";
 export * from "./protection";

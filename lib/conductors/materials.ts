@@ -10,9 +10,16 @@ export type Material = {
   /** Temperature coefficient of resistance at 20 degrees C, per kelvin. */
   alpha20: number;
   source: string;
+  /**
+   * Ampacity as a fraction of copper's for the same size: equal heating per metre (I^2 R) gives sqrt(rho_Cu / rho).
+   * Cross-check: NFPA 70 Table 310.16 prints 2 AWG at 75 C as 115 A copper and 90 A aluminium, 0.78 (from memory).
+   */
+  ampacityFactor: number;
 };
 
-export const MATERIALS: Record<MaterialId, Material> = {
+const equalHeating = (resistivity20: number) => Math.sqrt(1.7241e-8 / resistivity20);
+
+const DEFINED: Record<MaterialId, Omit<Material, "ampacityFactor">> = {
   copper: {
     id: "copper",
     name: "Copper (annealed)",
@@ -45,6 +52,10 @@ export const MATERIALS: Record<MaterialId, Material> = {
     source: "ASTM B566 class 10A, about 63 % IACS (from memory)",
   },
 };
+
+export const MATERIALS = Object.fromEntries(
+  Object.entries(DEFINED).map(([id, m]) => [id, { ...m, ampacityFactor: id === "copper" ? 1 : equalHeating(m.resistivity20) }]),
+) as Record<MaterialId, Material>;
 
 export const MATERIAL_IDS = Object.keys(MATERIALS) as MaterialId[];
 

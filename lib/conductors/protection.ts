@@ -1,4 +1,5 @@
 /** Fuse and breaker ratings, and where the device must sit. */
+import { describeDevice, type DeviceFamilyId } from "./devices";
 
 export type ProtectionType = "blade" | "bolt-in" | "breaker";
 
@@ -37,7 +38,8 @@ export function protectionFor(continuousA: number, deratedAmpacityA: number, pre
   return p && p.ratingA <= deratedAmpacityA + 1e-9 ? p : undefined;
 }
 
-/** "25 A blade fuse", "100 A bolt-in fuse", "50 A breaker". */
-export function describeProtection(p: { ratingA: number; type: ProtectionType }): string {
+/** "25 A blade fuse", "100 A bolt-in high-current fuse", "50 A manual-reset breaker (...)"; older saved sizings without a family: "50 A breaker". */
+export function describeProtection(p: { ratingA: number; type: ProtectionType; family?: DeviceFamilyId }): string {
+  if (p.family) return describeDevice({ ratingA: p.ratingA, family: p.family });
   return `${p.ratingA} A ${p.type === "blade" ? "blade fuse" : p.type === "bolt-in" ? "bolt-in fuse" : "breaker"}`;
 }

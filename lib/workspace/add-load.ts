@@ -1,5 +1,5 @@
 import { TERMINALS, type CircuitDocument, type Component, type OperatingState, type Wire } from "@/lib/circuit";
-import { INSULATION_TYPES, sizeCable, type Duty, type SizeFamily, type SizingAnswer } from "@/lib/conductors";
+import { INSULATION_TYPES, LOAD_EFFICIENCY, sizeCable, type Duty, type SizeFamily, type SizingAnswer } from "@/lib/conductors";
 import { freeSpot, nextId } from "./edit";
 
 /** Where an added load may take its power: a battery post, a bus bar or stud, a fuse block's output, a switched feed. */
@@ -17,6 +17,8 @@ export type AddLoadInput = {
   /** Terminal the load's return lands on, e.g. "G1.t" or "B1.neg". */
   ground: string;
   demand: { mode: "current" | "power"; value: number };
+  /** Of a power demand: its output over its input (an inverter's); LOAD_EFFICIENCY when not given. */
+  efficiency?: number;
   duty: Duty;
   /** One-way length of the feed from the fuse to the load, m. */
   feedLengthM: number;
@@ -90,13 +92,14 @@ export function planAddedLoad(doc: CircuitDocument, input: AddLoadInput): AddLoa
   const stateName = input.stateName.trim();
   if (!stateName) return { ok: false, message: "Name the state the load is on in, e.g. Winch pulling.", field: "stateName" };
 
-  // The cable carries the load's current at the system voltage (a power load draws a little more when the voltage sags).
-  const currentA = input.demand.mode === "current" ? input.demand.value : input.demand.value / doc.systemVoltage;
+  // The same engine call as the sizing page: a power goes in as a power, with its efficiency (a power load draws a
+  // little more when the voltage sags; the circuit's solve shows that).
+  const efficiency = input.demand.mode === "power" ? (input.efficiency ?? LOAD_EFFICIENCY) : undefined;
   const rating = INSULATION_TYPES.find((t) => t.id === input.insulation)?.ratingC ?? 105;
   // Feed and ground are the same size, so the two-wire sizing runs over their mean length: the same total copper.
   const sizing = sizeCable({
     systemVoltage: doc.systemVoltage,
-    currentA,
+    ...(input.demand.mode === "current" ? { currentA: input.demand.value } : { powerW: input.demand.value, efficiency }),
     lengthM: (input.feedLengthM + input.groundLengthM + TAP_LEAD_M) / 2,
     circuitClass: input.circuitClass,
     zone: input.zone,
@@ -125,7 +128,9 @@ export function planAddedLoad(doc: CircuitDocument, input: AddLoadInput): AddLoa
   const fuse: Component = { id: fuseId, kind: "fuse", label: `${input.label} fuse`, position: fusePos, rating: fuseA, resistance: fuseA > 40 ? 0.0002 : 0.002 };
   working = { ...working, components: [...working.components, fuse] };
   const loadPos = place({ x: fusePos.x + 240, y: fusePos.y });
-  const load: Component = { id: loadId, kind: "load", label: input.label, position: loadPos, mode: input.demand.mode, value: input.demand.value, enabled: false };
+  // A power load draws its output over its efficiency from the battery.
+  const drawn = input.demand.mode === "power" ? input.demand.value / (efficiency ?? 1) : input.demand.value;
+  const load: Component = { id: loadId, kind: "load", label: input.label, position: loadPos, mode: input.demand.mode, value: drawn, enabled: false };
   const route = { size, material: "copper" as const, insulationRatingC: rating, bundleSize: 1, zone: input.zone };
   const wires: Wire[] = [
     { id: wireIds[0], from: input.tap, to: `${fuseId}.a`, lengthM: TAP_LEAD_M, ...route },

@@ -11,9 +11,10 @@ describe("POST /api/v1/cable-size", () => {
     expect(res.status).toBe(200);
     const a = await res.json();
     expect(a.status).toBe("ok");
-    expect(Object.keys(a).sort()).toEqual(["basis", "candidates", "closest", "limitV", "notes", "protection", "reason", "recommended", "status"]);
+    expect(Object.keys(a).sort()).toEqual(["ampacityBasis", "basis", "candidates", "closest", "limitV", "load", "notes", "protection", "reason", "recommended", "status", "temperatureBasis"]);
     expect(a.limitV).toBeCloseTo(0.36, 12); // 3 % of 12 V: ABYC E-11 critical-circuit limit
-    expect(Object.keys(a.recommended).sort()).toEqual(["ambientFactor", "bundleFactor", "derived", "dropPercent", "dropV", "governing", "lossW", "ok", "resistanceOhm", "size", "tableAmpacityA"].concat("ampacityA").sort());
+    expect(Object.keys(a.recommended).sort()).toEqual(["ambientFactor", "bundleFactor", "conductorTempC", "derived", "dropPercent", "dropV", "governing", "lossW", "materialFactor", "ok", "resistanceOhm", "size", "tableAmpacityA"].concat("ampacityA").sort());
+    expect(Object.keys(a.protection.checks).sort()).toEqual(["ampacityA", "fault", "inrush", "peak", "ratingA"]);
   });
 
   it.each([

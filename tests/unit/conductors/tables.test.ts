@@ -7,6 +7,8 @@ import {
   deratedAmpacity,
   findSize,
   resistancePerMetre,
+  sizeCable,
+  squareRootRule,
   tableAmpacity,
   temperatureFactor,
   type ConductorSize,
@@ -98,7 +100,19 @@ describe("derating", () => {
   it.each(refs.necAmbientFactors.bands)("NFPA 70 ambient factor for $ratingC C insulation at $topC C is $factor", ({ ratingC, topC, factor }) => {
     // Each printed factor equals the square-root formula at the top of its band, rounded to two places
     // (NFPA 70 310.15(B)(1); sourced rows flagged in the fixture, others from memory).
-    expect(Math.round(ambientFactor(ratingC, topC) * 100) / 100).toBe(factor);
+    expect(Math.round(squareRootRule(ratingC, topC) * 100) / 100).toBe(factor);
+    // Ampwright applies it only downward: Table 5 (30 C basis) prints nothing for colder ambients.
+    expect(ambientFactor(ratingC, topC)).toBeCloseTo(Math.min(1, factor), 1);
+  });
+
+  it("takes no credit for the cold: at -20 C a 10 AWG cable keeps its table rating, and its fuse stays within it", () => {
+    // Regression: at -20 C the factor rose above 1 and 10 AWG (Table 5: 60 A at 105 C) was allowed a 70 A fuse.
+    expect(ambientFactor(105, -20)).toBe(1);
+    const d = deratedAmpacity(size("10 AWG"), 105, -20, 1)!;
+    expect(d.ampacityA).toBe(60); // 33 CFR 183.425 Table 5, 10 AWG, 105 C column
+    const a = sizeCable({ systemVoltage: 12, currentA: 48, lengthM: 0.5, ambientC: -20, minSize: "10 AWG" });
+    expect(a.recommended?.size).toBe("10 AWG");
+    expect(a.protection!.ratingA).toBeLessThanOrEqual(60);
   });
 
   it.each(Object.entries(refs.engineRoomFactors.values))("engine compartment (50 C) factor for %s C insulation is %s", (rating, factor) => {
