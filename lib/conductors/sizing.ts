@@ -1,5 +1,5 @@
 import { deratedAmpacity, ZONE_AMBIENT_C, TABLE5_BASIS_C, type Zone } from "./ampacity";
-import { bandAt, DEVICE_FAMILIES, describeDevice, familiesFor, letThroughI2t, withstandI2t, type DeviceFamilyId, type DevicePreference } from "./devices";
+import { bandAt, describeDevice, familiesFor, letThroughI2t, withstandI2t, type DeviceFamilyId, type DevicePreference } from "./devices";
 import { MATERIALS, type MaterialId } from "./materials";
 import { PLACEMENT_RULE, PROTECTION_MARGIN, type Protection } from "./protection";
 import { conductorTempC, resistancePerMetre, type ConductorTempChoice } from "./resistance";
