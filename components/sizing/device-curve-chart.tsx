@@ -35,6 +35,9 @@ export const DeviceCurveChart = memo(function DeviceCurveChart({ answer }: { ans
       withstand: inFaultRange ? clampT(fault.withstandI2t / (amps * amps)) : undefined,
     };
   });
+  // Ticks at 1, 2 and 5 of each decade in view.
+  const ticks: number[] = [];
+  for (let d = 10 ** Math.floor(Math.log10(lo)); d <= hi; d *= 10) for (const m of [1, 2, 5]) if (d * m >= lo && d * m <= hi) ticks.push(d * m);
   const points = [{ amps: peak.currentA, time: Math.max(T_MIN, peak.forS || 0.01), name: "peak" }, ...(inrush ? [{ amps: inrush.currentA, time: inrush.forS, name: "inrush" }] : [])];
   const withstandKA2s = fault.withstandI2t / 1e6;
   const letKA2s = fault.letThroughI2t / 1e6;
@@ -55,6 +58,7 @@ export const DeviceCurveChart = memo(function DeviceCurveChart({ answer }: { ans
               scale="log"
               domain={[lo, hi]}
               allowDataOverflow
+              ticks={ticks}
               tickFormatter={(v: number) => fmtAmps(v)}
               label={{ value: "current", position: "insideBottom", offset: -2, fontSize: 12 }}
               fontSize={12}

@@ -10,7 +10,7 @@ import { SaveSizing } from "./save-sizing";
 
 const input = "mt-1 w-full rounded-md border border-graphite-300 bg-white px-3 py-2";
 
-const FAILS_ON: Record<Governing, string> = { drop: "voltage drop", ampacity: "heat", protection: "no device fits", "minimum-size": "too small to handle" };
+const FAILS_ON: Record<Governing, string> = { drop: "voltage drop", ampacity: "heat", protection: "no device fits", "minimum-size": "below the minimum size" };
 
 /** The upfitter's quick cable and fuse sizing: computed in the browser as the values are typed. */
 export function SizingCalculator() {

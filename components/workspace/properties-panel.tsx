@@ -6,7 +6,7 @@ import { CIRCUIT_DEFAULTS, componentSchema, wireSchema, type Component, type Com
 import { MATERIALS, MATERIAL_IDS } from "@/lib/conductors/materials";
 import { SIZE_LABELS } from "@/lib/conductors/sizes";
 import { ratingShown, sizeShown, type UnitPrefs } from "@/lib/workspace/prefs";
-import { fromSI, parseQuantity, type Quantity } from "@/lib/units";
+import { fromSI, parseDecimal, parseQuantity, type Quantity } from "@/lib/units";
 import { KIND_NAMES } from "@/lib/workspace/edit";
 
 
@@ -27,10 +27,12 @@ function componentFields(c: Component): Field[] {
       { key: "internalResistance", label: "Internal resistance", type: "quantity", quantity: "resistance", unit: "mOhm" },
       { key: "cca", label: "Cold-cranking amps (CCA)", type: "count", optional: true },
       { key: "capacityAh", label: "Capacity, Ah", type: "count", optional: true },
+      { key: "peukertExponent", label: "Peukert exponent (empty: 1.25)", type: "count", optional: true },
     ],
     alternator: [
       { key: "regulatedVoltage", label: "Regulated voltage", type: "quantity", quantity: "voltage", unit: "V" },
       { key: "ratedCurrent", label: "Rated output", type: "quantity", quantity: "current", unit: "A" },
+      { key: "idleFraction", label: "Output at idle, share of rated (empty: 0.6)", type: "count", optional: true },
       { key: "enabled", label: "Running (charging)", type: "bool" },
     ],
     starter: [
@@ -141,10 +143,13 @@ export function PropertiesPanel(props: {
       } else if (f.type === "count") {
         const t = String(raw ?? "").trim();
         if (!t && f.optional) delete next[f.key];
-        else if (!/^\d+(\.\d+)?$/.test(t)) {
-          form.setError(f.key, { message: "a number, like 750" });
-          bad = true;
-        } else next[f.key] = Number(t);
+        else {
+          const n = parseDecimal(t);
+          if (!n.ok || n.value < 0) {
+            form.setError(f.key, { message: n.ok ? "can't be negative" : n.message });
+            bad = true;
+          } else next[f.key] = n.value;
+        }
       } else {
         const t = String(raw ?? "").trim();
         if (!t && f.optional) delete next[f.key];

@@ -27,12 +27,16 @@ export const batterySchema = z.strictObject({
   internalResistance: nonNegOhm("Internal resistance"),
   capacityAh: z.number({ error: "Capacity must be a number of ampere-hours" }).finite().positive("Capacity must be more than 0 Ah").optional(),
   cca: z.number({ error: "CCA must be a number of amperes" }).finite().positive("CCA must be more than 0 A").optional(),
+  /** How much faster it runs down at higher currents (Peukert's law); PEUKERT_DEFAULT when not given. */
+  peukertExponent: z.number({ error: "Peukert exponent must be a number" }).finite().min(1, "Peukert exponent is at least 1").max(1.6, "Peukert exponent is at most 1.6").optional(),
 });
 export const alternatorSchema = z.strictObject({
   ...base,
   kind: z.literal("alternator"),
   regulatedVoltage: volts("Regulated voltage").positive("Regulated voltage must be more than 0 V").max(1000, "Regulated voltage is at most 1000 V"),
   ratedCurrent: amps("Rated current").min(0, "Rated current can't be negative"),
+  /** Its output at engine idle as a fraction of its rating; IDLE_FRACTION_DEFAULT when not given. */
+  idleFraction: z.number({ error: "Output at idle must be a fraction such as 0.6" }).finite().gt(0, "Output at idle must be more than 0").max(1, "Output at idle is at most its rating (1)").optional(),
   enabled: z.boolean().optional(),
 });
 export const starterSchema = z

@@ -1,4 +1,4 @@
-import { TERMINALS, type CircuitDocument, type Component, type ComponentKind, type Wire } from "@/lib/circuit";
+import { stateIdsOf, TERMINALS, type CircuitDocument, type Component, type ComponentKind, type OperatingState, type Wire } from "@/lib/circuit";
 
 /** Id prefixes by kind, as a technician labels a sketch: B1, A1, M1 (motor), L1, F1, S1, J1 (joint), N1 (node), G1. */
 export const ID_PREFIX: Record<ComponentKind, string> = {
@@ -50,7 +50,8 @@ export function newComponent(kind: ComponentKind, id: string, position: { x: num
     case "alternator":
       return { ...base, kind, regulatedVoltage: +(14.2 * k).toFixed(2), ratedCurrent: 120, enabled: true };
     case "starter":
-      return { ...base, kind, current: 200, enabled: true };
+      // Off in the base state: a starter cranks in its own state (see addComponent), never while the engine charges.
+      return { ...base, kind, current: 200, enabled: false };
     case "load":
       return { ...base, kind, mode: "current", value: 10, enabled: true };
     case "fuse":
@@ -66,9 +67,32 @@ export function newComponent(kind: ComponentKind, id: string, position: { x: num
   }
 }
 
+/** The state a circuit cranks in: one whose id or name says so. */
+export function crankingState(doc: CircuitDocument): OperatingState | undefined {
+  return (doc.states ?? []).find((s) => /crank/i.test(`${s.id} ${s.name}`));
+}
+
+/**
+ * Adds a part. A starter is off in the base state and on in a cranking state (made, named "Cranking", when the
+ * circuit has none), where every alternator is off: the engine does not charge while it cranks. An alternator
+ * added later is off in that state too.
+ */
 export function addComponent(doc: CircuitDocument, kind: ComponentKind, position: { x: number; y: number }): { doc: CircuitDocument; id: string } {
   const id = nextId(doc, kind);
-  return { doc: { ...doc, components: [...doc.components, newComponent(kind, id, position, doc.systemVoltage)] }, id };
+  let next: CircuitDocument = { ...doc, components: [...doc.components, newComponent(kind, id, position, doc.systemVoltage)] };
+  if (kind === "starter" || kind === "alternator") {
+    const crank = crankingState(next);
+    const on = kind === "starter";
+    if (crank) {
+      next = { ...next, states: (next.states ?? []).map((s) => (s === crank ? { ...s, set: { ...s.set, [id]: { ...(s.set[id] ?? {}), enabled: on } } } : s)) };
+    } else if (on) {
+      const taken = new Set(stateIdsOf(next));
+      const stateId = taken.has("crank") ? `crank-${taken.size}` : "crank";
+      const alternatorsOff = Object.fromEntries(next.components.filter((c) => c.kind === "alternator").map((c) => [c.id, { enabled: false }]));
+      next = { ...next, states: [...(next.states ?? []), { id: stateId, name: "Cranking", set: { ...alternatorsOff, [id]: { enabled: true } } }] };
+    }
+  }
+  return { doc: next, id };
 }
 
 /** Joins two terminals with a cable of a common size; refuses a terminal to itself and a second identical wire. */
@@ -76,7 +100,9 @@ export function addWire(doc: CircuitDocument, from: string, to: string): { doc: 
   if (from === to) return { doc, refused: "A cable needs two different terminals." };
   if (doc.wires.some((w) => (w.from === from && w.to === to) || (w.from === to && w.to === from))) return { doc, refused: `${from} and ${to} are joined already.` };
   const id = nextWireId(doc);
-  const wire: Wire = { id, from, to, size: "10 AWG", material: "copper", lengthM: 1, zone: "cabin" };
+  // A cable to a starter or an alternator runs in the engine compartment; any other starts in the cabin.
+  const engine = [from, to].some((t) => ["starter", "alternator"].includes(doc.components.find((c) => c.id === t.slice(0, t.lastIndexOf(".")))?.kind ?? ""));
+  const wire: Wire = { id, from, to, size: "10 AWG", material: "copper", lengthM: 1, zone: engine ? "engine" : "cabin" };
   return { doc: { ...doc, wires: [...doc.wires, wire] }, id };
 }
 

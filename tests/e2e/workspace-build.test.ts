@@ -98,12 +98,11 @@ describe("building a circuit on the canvas", () => {
     // 48 in = 1.2192 m: 0.4053 mOhm x 1.2192 / 1.524 = 0.324 mOhm.
     await expect.poll(() => page.locator('[data-row-id="W4"] td').nth(3).textContent()).toBe("0.324 mΩ");
 
-    // A cranking state: the engine not running (alternator off), the starter drawing 300 A.
-    await page.getByTestId("ws-new-state").fill("Cranking");
-    await page.getByTestId("ws-add-state").click();
-    expect(await page.getByTestId("ws-state").inputValue()).toBe("cranking");
+    // Dropping the starter made a cranking state: the starter on, the engine not running (alternator off). The base
+    // state neither cranks nor charges at once. In it the starter draws 300 A.
+    await page.getByTestId("ws-state").selectOption("crank");
     await page.getByTestId("part-A1").click();
-    await page.getByTestId("prop-enabled").uncheck();
+    expect(await page.getByTestId("prop-enabled").isChecked()).toBe(false);
     await page.getByTestId("part-M1").click();
     await type(page, "current", "300 A");
 
@@ -131,7 +130,7 @@ describe("building a circuit on the canvas", () => {
     await expect.poll(() => page.getByTestId("ws-save").textContent(), { timeout: 15_000 }).toMatch(/^Saved, version \d+$/);
     await page.reload({ waitUntil: "networkidle" });
     await page.getByTestId("part-M1").waitFor();
-    await page.getByTestId("ws-state").selectOption("cranking");
+    await page.getByTestId("ws-state").selectOption("crank");
     await expect.poll(() => dropOf(page, "W7")).toBeCloseTo(expected, 3);
 
     // Two tabs: this one saves a change; the other, opened before it, is told on its own save and shown both.

@@ -141,8 +141,10 @@ describe("the supply check", () => {
   });
 
   it("a load beyond the alternator's rating runs the battery down, and says for how long", () => {
-    // Arithmetic: 80 A of load against a 50 A alternator at its limit leaves 30 A for the battery; 60 Ah used to
-    // half (USABLE_FRACTION, common practice (no source)) lasts 0.5 x 60 / 30 = 1 h.
+    // Arithmetic: 80 A of load against a 50 A alternator at its limit leaves 30 A for the battery. Peukert's law
+    // (1897), t = H (C / (I H))^k with H = 20 h (SAE J537 20-hour rating, from memory), k = 1.25 (common practice):
+    // 20 x (60 / 600)^1.25 = 1.1247 h to empty; half (USABLE_FRACTION, common practice (no source)) is 0.562 h, not the
+    // 0.5 x 60 / 30 = 1 h that ignoring the discharge rate gave.
     const doc = truck({ ratedA: 50, capacityAh: 60 });
     doc.components.push({ id: "L1", kind: "load", position: { x: 300, y: -200 }, mode: "current", value: 80, enabled: true });
     doc.wires.push({ id: "W5", from: "N1.t", to: "L1.pos", resistanceOhm: 0 }, { id: "W6", from: "L1.neg", to: "G1.t", resistanceOhm: 0 });
@@ -151,18 +153,25 @@ describe("the supply check", () => {
     expect(row.verdict).toBe("deficit");
     expect(row.alternatorA).toBeCloseTo(50, 6);
     expect(row.batteryA).toBeCloseTo(-30, 6);
-    expect(row.hoursToHalf).toBeCloseTo(1, 6);
-    expect(row.message).toMatch(/running down.*about 1\.0 h/);
+    expect(row.hoursToHalf).toBeCloseTo(0.5 * 20 * (60 / 600) ** 1.25, 9);
+    expect(row.message).toMatch(/running down.*about 34 min/);
+    // At idle a 50 A alternator gives 60 % (common practice default): 30 A, 50 A short of the 80 A of loads.
+    expect(row.idleA).toBeCloseTo(30, 9);
+    expect(row.message).toMatch(/At idle it gives only about 30 A \(60 % of its rating\), 50\.0 A short/);
   });
 
   it("without an alternator the battery carries everything", () => {
-    // Arithmetic: a 20 A load on a 90 Ah battery reaches half in 0.5 x 90 / 20 = 2.25 h.
+    // Arithmetic (Peukert, k = 1.25, 20-hour rate): a 20 A load on a 90 Ah battery empties in 20 x (90 / 400)^1.25 =
+    // 3.09 h and reaches half in 1.55 h.
     const doc = truck({ alternator: false, capacityAh: 90 });
     doc.components.push({ id: "L1", kind: "load", position: { x: 300, y: -200 }, mode: "current", value: 20, enabled: true });
     doc.wires.push({ id: "W5", from: "N1.t", to: "L1.pos", resistanceOhm: 0 }, { id: "W6", from: "L1.neg", to: "G1.t", resistanceOhm: 0 });
     doc.states = [];
     const [row] = supplyCheck(doc);
     expect(row.verdict).toBe("battery-only");
-    expect(row.hoursToHalf).toBeCloseTo(2.25, 9);
+    expect(row.hoursToHalf).toBeCloseTo(0.5 * 20 * (90 / 400) ** 1.25, 9);
+    // A battery given an exponent of 1 (an ideal one) gives the plain 0.5 x 90 / 20 = 2.25 h.
+    (doc.components.find((c) => c.kind === "battery") as { peukertExponent?: number }).peukertExponent = 1;
+    expect(supplyCheck(doc)[0].hoursToHalf).toBeCloseTo(2.25, 9);
   });
 });

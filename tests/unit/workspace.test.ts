@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { benchTrainer, pickupCharging } from "@/db/demo-work";
-import { loadCircuit } from "@/lib/circuit";
+import { emptyCircuit, loadCircuit } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
 import { assess, bandOf } from "@/lib/workspace/analysis";
 import { addComponent, addWire, copyItems, freeSpot, pasteItems, removeItems } from "@/lib/workspace/edit";
@@ -94,5 +94,31 @@ describe("display preferences", () => {
     // 105 degrees C x 9/5 + 32 = 221 degrees F (definition of the scales).
     expect(ratingShown(105, mm2)).toBe("221 °F (105 °C)");
     expect(ratingShown(105, DEFAULT_PREFS)).toBe("105 °C");
+  });
+});
+
+describe("defaults that fit the part", () => {
+  it("a dropped starter cranks in its own state, never in the base state with the alternator charging", () => {
+    let doc = emptyCircuit("Built", 12);
+    doc = addComponent(doc, "alternator", { x: 0, y: 0 }).doc;
+    const { doc: withStarter, id } = addComponent(doc, "starter", { x: 100, y: 0 });
+    expect(withStarter.components.find((c) => c.id === id)).toMatchObject({ enabled: false });
+    const crank = withStarter.states!.find((s) => s.id === "crank")!;
+    expect(crank.name).toBe("Cranking");
+    expect(crank.set).toEqual({ A1: { enabled: false }, [id]: { enabled: true } });
+    // An alternator added afterwards is off while cranking too.
+    const more = addComponent(withStarter, "alternator", { x: 0, y: 100 });
+    expect(more.doc.states!.find((s) => s.id === "crank")!.set[more.id]).toEqual({ enabled: false });
+  });
+
+  it("a cable to a starter or an alternator runs in the engine compartment", () => {
+    let doc = emptyCircuit("Built", 12);
+    doc = addComponent(doc, "battery", { x: 0, y: 0 }).doc;
+    doc = addComponent(doc, "starter", { x: 100, y: 0 }).doc;
+    doc = addComponent(doc, "load", { x: 0, y: 100 }).doc;
+    const toStarter = addWire(doc, "B1.pos", "M1.in");
+    expect(toStarter.doc.wires.find((w) => w.id === toStarter.id)?.zone).toBe("engine");
+    const toLoad = addWire(doc, "B1.pos", "L1.pos");
+    expect(toLoad.doc.wires.find((w) => w.id === toLoad.id)?.zone).toBe("cabin");
   });
 });
