@@ -106,6 +106,13 @@ export function SizingCalculator() {
             </select>
           </label>
           <label className="block text-sm">
+            <span className="font-medium text-graphite-800">Ampacity from</span>
+            <select className={input} value={v.basis} onChange={set("basis")} data-testid="size-basis">
+              <option value="marine-table">Marine table (33 CFR 183.425)</option>
+              <option value="heat-balance">Heat balance, cable in still air</option>
+            </select>
+          </label>
+          <label className="block text-sm">
             <span className="font-medium text-graphite-800">Protect with</span>
             <select className={input} value={v.device} onChange={set("device")} data-testid="size-device">
               <option value="fuse">A fuse (blade or bolt-in)</option>

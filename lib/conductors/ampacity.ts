@@ -1,4 +1,4 @@
-import { MATERIALS, type MaterialId } from "./materials";
+import { MATERIALS, STRANDING_FACTOR, type MaterialId } from "./materials";
 import { findSize, type ConductorSize } from "./sizes";
 
 /**
@@ -100,11 +100,61 @@ export function deratedAmpacity(
   ambientC: number,
   bundleSize: number,
   material: MaterialId = "copper",
+  basis: AmpacityBasis = "marine-table",
 ): DeratedAmpacity | undefined {
+  if (basis === "heat-balance") {
+    // The heat balance works at the real ambient and material itself: no table factors but the bundle's.
+    const amps = heatBalanceAmpacity(size, material, insulationRatingC, ambientC);
+    const bf = bundleFactor(bundleSize);
+    return { amps, columnC: insulationRatingC, derived: false, lowerColumn: false, ambientFactor: 1, bundleFactor: bf, materialFactor: 1, ampacityA: amps * bf };
+  }
   const base = tableAmpacity(size, insulationRatingC);
   if (!base) return undefined;
   const af = ambientFactor(base.columnC, ambientC);
   const bf = bundleFactor(bundleSize);
   const mf = MATERIALS[material].ampacityFactor;
   return { ...base, ambientFactor: af, bundleFactor: bf, materialFactor: mf, ampacityA: base.amps * af * bf * mf };
+}
+
+/** The bases an ampacity can come from: the marine table, or a heat balance of the cable in still air. */
+export type AmpacityBasis = "marine-table" | "heat-balance";
+
+/**
+ * Parameters of the heat balance, each a representative engineering figure (from memory; the cable maker's data
+ * decides for a given cable): natural convection from a horizontal cylinder in still air, h = 1.32 (dT / D)^0.25
+ * W/m2K (the simplified laminar correlation of heat-transfer handbooks); radiation with emissivity 0.9 (PVC and
+ * cross-linked polyolefin jackets); insulation thermal conductivity 0.2 W/mK; and a thin automotive wall of
+ * 0.2 mm + 10 % of the conductor's diameter (close to the ISO 6722-1 thin-wall and SAE J1128 TXL outer diameters).
+ */
+export const HEAT_BALANCE = { convection: 1.32, emissivity: 0.9, insulationW_mK: 0.2, wallBaseM: 0.0002, wallFraction: 0.1 } as const;
+const SIGMA = 5.670374419e-8; // Stefan-Boltzmann constant, W/m2K4 (CODATA 2018)
+
+/**
+ * The current at which a cable alone in still air at ambientC settles with its conductor at the insulation's rating:
+ * I^2 R'(Tc) = (Tc - Ta) / (R_insulation + 1 / (h pi D)), with R' at the conductor temperature. A basis for road
+ * vehicles, whose cables are rated by temperature class (ISO 6722-1 classes A to D, SAE J1128), not by a table.
+ */
+export function heatBalanceAmpacity(size: ConductorSize, material: MaterialId, insulationRatingC: number, ambientC: number): number {
+  if (ambientC >= insulationRatingC) return 0;
+  const m = MATERIALS[material];
+  const dc = Math.sqrt((4 * size.areaM2) / Math.PI);
+  const dout = dc + 2 * (HEAT_BALANCE.wallBaseM + HEAT_BALANCE.wallFraction * dc);
+  const rPerM = (m.resistivity20 / size.areaM2) * STRANDING_FACTOR * (1 + m.alpha20 * (insulationRatingC - 20));
+  const rIns = Math.log(dout / dc) / (2 * Math.PI * HEAT_BALANCE.insulationW_mK);
+  // The surface sits between the conductor and the air: find it by fixed-point iteration on the heat flow.
+  let ts = (insulationRatingC + ambientC) / 2;
+  let q = 0;
+  for (let i = 0; i < 60; i++) {
+    const dT = Math.max(1e-6, ts - ambientC);
+    const hConv = HEAT_BALANCE.convection * (dT / dout) ** 0.25;
+    const tsK = ts + 273.15;
+    const taK = ambientC + 273.15;
+    const hRad = HEAT_BALANCE.emissivity * SIGMA * (tsK * tsK + taK * taK) * (tsK + taK);
+    const rAir = 1 / ((hConv + hRad) * Math.PI * dout);
+    q = (insulationRatingC - ambientC) / (rIns + rAir);
+    const next = ambientC + q * rAir;
+    if (Math.abs(next - ts) < 1e-9) break;
+    ts = next;
+  }
+  return Math.sqrt(q / rPerM);
 }

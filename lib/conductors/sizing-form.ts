@@ -1,3 +1,4 @@
+import type { AmpacityBasis } from "./ampacity";
 import { INSULATION_TYPES } from "./insulation";
 import { MATERIAL_IDS, type MaterialId } from "./materials";
 import { LOAD_EFFICIENCY, type SizingRequest } from "./sizing";
@@ -17,6 +18,7 @@ export type SizingInputs = {
   inrush: string;
   material: MaterialId;
   device: "fuse" | "breaker";
+  basis: AmpacityBasis;
   length: string;
   circuitClass: "critical" | "non-critical";
   zone: "cabin" | "engine" | "underbody";
@@ -51,6 +53,7 @@ export const SIZING_DEFAULTS: SizingInputs = {
   inrush: "",
   material: LOAD_DEFAULTS.material,
   device: LOAD_DEFAULTS.device,
+  basis: "marine-table",
   length: "6 m",
   circuitClass: LOAD_DEFAULTS.circuitClass,
   zone: LOAD_DEFAULTS.zone,
@@ -109,6 +112,7 @@ export function parseSizingInputs(i: SizingInputs): ParsedSizingInputs {
       returnResistanceOhm: ret?.ok ? ret.ohm : undefined,
       material: i.material,
       device: i.device,
+      ampacityBasis: i.basis,
       duty: i.duty === "intermittent" ? { kind: "intermittent", onS, periodS } : { kind: "continuous" },
     },
   };
@@ -176,6 +180,7 @@ const CHOICES: Partial<Record<keyof SizingInputs, readonly string[]>> = {
   duty: ["continuous", "intermittent"],
   material: MATERIAL_IDS,
   device: ["fuse", "breaker"],
+  basis: ["marine-table", "heat-balance"],
 };
 
 /** The inputs a shared or bookmarked address carries, over the defaults. */

@@ -1,4 +1,4 @@
-import { deratedAmpacity, ZONE_AMBIENT_C, TABLE5_BASIS_C, type Zone } from "./ampacity";
+import { deratedAmpacity, ZONE_AMBIENT_C, TABLE5_BASIS_C, type AmpacityBasis, type Zone } from "./ampacity";
 import { bandAt, describeDevice, familiesFor, letThroughI2t, withstandI2t, type DeviceFamilyId, type DevicePreference } from "./devices";
 import { MATERIALS, type MaterialId } from "./materials";
 import { PLACEMENT_RULE, PROTECTION_MARGIN, type Protection } from "./protection";
@@ -39,6 +39,8 @@ export type SizingRequest = {
   device?: DevicePreference;
   /** The source's own resistance for the prospective fault current, ohm (default: SOURCE_RESISTANCE_OHM_PER_12V per 12 V). */
   sourceResistanceOhm?: number;
+  /** Where ampacity comes from: the marine table (default) or a heat balance of the cable in still air. */
+  ampacityBasis?: AmpacityBasis;
 };
 
 export type Governing = "drop" | "ampacity" | "protection" | "minimum-size";
@@ -117,7 +119,11 @@ export const CHASSIS_RETURN_DEFAULT_OHM = 0.001;
  * with its posts (common practice, no source). It sets the prospective fault current the cable must survive.
  */
 export const SOURCE_RESISTANCE_OHM_PER_12V = 0.005;
-export const AMPACITY_BASIS = "33 CFR 183.425 Table 5 (the marine standard ABYC E-11's figures), corrected for ambient (NFPA 70 310.15(B)(1), no credit below 30 C), bundling (USCG guideline) and material (equal heating)";
+export const AMPACITY_BASES: Record<AmpacityBasis, string> = {
+  "marine-table": "33 CFR 183.425 Table 5 (the marine standard ABYC E-11's figures), corrected for ambient (NFPA 70 310.15(B)(1), no credit below 30 C), bundling (USCG guideline) and material (equal heating)",
+  "heat-balance":
+    "a heat balance of the cable alone in still air at its insulation's temperature class (ISO 6722-1 / SAE J1128 ratings): natural convection and radiation from heat-transfer handbooks and a thin automotive wall (representative parameters, from memory), then bundling (USCG guideline)",
+};
 
 const round = (x: number, digits: number) => {
   const f = 10 ** digits;
@@ -245,7 +251,8 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
   }
   const basis = { currentA: loadA, lengthM: req.lengthM, returnResistanceOhm: returnR };
   const sourceR = req.sourceResistanceOhm ?? SOURCE_RESISTANCE_OHM_PER_12V * Math.max(1, req.systemVoltage / 12);
-  const materialFactor = MATERIALS[material].ampacityFactor;
+  const basisId: AmpacityBasis = req.ampacityBasis ?? "marine-table";
+  const materialFactor = basisId === "marine-table" ? MATERIALS[material].ampacityFactor : 1;
 
   let continuousA = loadA;
   let onS = 0;
@@ -266,7 +273,7 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
 
   const devices: (DeviceCheck | null)[] = [];
   const candidates: Candidate[] = sizesOf(family).map((size: ConductorSize, rank) => {
-    const amp = deratedAmpacity(size, rating, ambient, bundle, material);
+    const amp = deratedAmpacity(size, rating, ambient, bundle, material, basisId);
     const ampacityA = amp?.ampacityA ?? 0;
     const tempC = tempChoice === "operating" ? operatingTempC(ambient, rating, continuousA, ampacityA) : conductorTempC(tempChoice, ambient, rating);
     const perMetre = resistancePerMetre(size, material, tempC);
@@ -321,11 +328,12 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
           : `Drop is worked at ${round(tempChoice, 1)} C, as asked.`;
   notes.push(temperatureBasis);
   if (rating < 60) notes.push("Insulation rated under 60 C is below the ampacity table; no size can be given an ampacity.");
+  if (basisId === "heat-balance") notes.push(`Ampacity from ${AMPACITY_BASES["heat-balance"]}.`);
   if (candidates.some((c) => c.derived)) notes.push("Sizes marked derived are not rows of 33 CFR 183.425 Table 5; their ampacity is interpolated log-log in circular mils.");
-  if (ambient < TABLE5_BASIS_C) notes.push(`No ampacity credit is taken for the cold: ${round(ambient, 0)} C is below the table's 30 C basis, and the table prints no factor above 1.`);
+  if (ambient < TABLE5_BASIS_C && basisId === "marine-table") notes.push(`No ampacity credit is taken for the cold: ${round(ambient, 0)} C is below the table's 30 C basis, and the table prints no factor above 1.`);
   if (material !== "copper" && material !== "tinned-copper") {
     notes.push(
-      `${MATERIALS[material].name}: ampacity is copper's x ${round(materialFactor, 3)} (equal heating: the square root of copper's resistivity over its own). Use terminals and lugs rated for aluminium, with oxide-inhibiting compound, torqued to the maker's figure: an aluminium joint that loosens runs hot.`,
+      `${MATERIALS[material].name}: ${basisId === "marine-table" ? `ampacity is copper's x ${round(materialFactor, 3)} (equal heating: the square root of copper's resistivity over its own)` : "the heat balance uses its own resistivity"}. Use terminals and lugs rated for aluminium, with oxide-inhibiting compound, torqued to the maker's figure: an aluminium joint that loosens runs hot.`,
     );
   }
   if (returnPath === "chassis" && req.returnResistanceOhm === undefined) {
@@ -358,7 +366,7 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
       limitV,
       basis,
       load: { currentA: loadA, continuousA, fromPowerW: req.powerW ?? null, efficiency },
-      ampacityBasis: AMPACITY_BASIS,
+      ampacityBasis: AMPACITY_BASES[basisId],
       temperatureBasis,
       recommended: null,
       candidates,
@@ -386,7 +394,7 @@ export function sizeCable(req: SizingRequest): SizingAnswer {
     limitV,
     basis,
     load: { currentA: loadA, continuousA, fromPowerW: req.powerW ?? null, efficiency },
-    ampacityBasis: AMPACITY_BASIS,
+    ampacityBasis: AMPACITY_BASES[basisId],
     temperatureBasis,
     recommended: chosen,
     candidates,

@@ -18,6 +18,7 @@ export const cableSizeRequest = z
     returnPath: z.enum(["two-wire", "chassis"]).default("two-wire"),
     returnResistanceOhm: z.number({ error: "Return resistance must be a number of ohms" }).finite().min(0, "Return resistance can't be negative").max(10, "Return resistance above 10 ohm is not a vehicle's frame").optional(),
     sourceResistanceOhm: positive("Source resistance").max(10).optional(),
+    ampacityBasis: z.enum(["marine-table", "heat-balance"], { error: 'ampacityBasis is "marine-table" or "heat-balance"' }).default("marine-table"),
     device: z.enum(["fuse", "breaker", ...DEVICE_FAMILY_IDS] as [string, ...string[]], { error: `device is "fuse", "breaker" or one of ${DEVICE_FAMILY_IDS.join(", ")}` }).default("fuse"),
     circuitClass: z.enum(["critical", "non-critical"]).default("critical"),
     maxDropPercent: positive("Drop limit").max(50, "A drop limit is at most 50 %").optional(),

@@ -5,6 +5,7 @@ import {
   CHASSIS_RETURN_DEFAULT_OHM,
   DEVICE_FAMILIES,
   findSize,
+  heatBalanceAmpacity,
   letThroughI2t,
   MATERIALS,
   operatingTempC,
@@ -248,4 +249,34 @@ it("fixes no figure by accident: every family's band is ordered and its sources 
   }
   // A size check on the helper the chooser uses: 2 AWG is 33.6 mm2 by the ASTM B258 diameter law.
   expect(size("2 AWG").areaM2 * 1e6).toBeCloseTo(33.62, 1);
+});
+
+describe("the ampacity basis is named and choosable", () => {
+  it("the heat balance agrees with 33 CFR 183.425 Table 5 within 20 % for 18 to 6 AWG, an independent check", () => {
+    // Table 5 (the published marine figures, 30 C ambient) against a heat balance of a single cable in still air
+    // with handbook convection and radiation (parameters from memory): two independent routes to the same quantity.
+    const table: Record<string, Record<number, number>> = {
+      "18 AWG": { 90: 20, 105: 20, 125: 25 },
+      "14 AWG": { 90: 30, 105: 35, 125: 40 },
+      "10 AWG": { 90: 55, 105: 60, 125: 70 },
+      "6 AWG": { 90: 100, 105: 120, 125: 125 },
+    };
+    for (const [label, cols] of Object.entries(table)) {
+      for (const [rating, amps] of Object.entries(cols)) {
+        const hb = heatBalanceAmpacity(size(label), "copper", Number(rating), 30);
+        expect(Math.abs(hb / amps - 1), `${label} at ${rating} C: ${hb.toFixed(1)} A against ${amps} A`).toBeLessThan(0.2);
+      }
+    }
+  });
+
+  it("falls with a hotter ambient and rises with size, and names its basis in the answer", () => {
+    const s = size("8 AWG");
+    expect(heatBalanceAmpacity(s, "copper", 105, 50)).toBeLessThan(heatBalanceAmpacity(s, "copper", 105, 30));
+    expect(heatBalanceAmpacity(size("6 AWG"), "copper", 105, 30)).toBeGreaterThan(heatBalanceAmpacity(s, "copper", 105, 30));
+    // Aluminium runs hotter at the same current: less ampacity from its own resistivity.
+    expect(heatBalanceAmpacity(s, "aluminium", 105, 30)).toBeLessThan(heatBalanceAmpacity(s, "copper", 105, 30));
+    const a = sizeCable({ systemVoltage: 12, currentA: 40, lengthM: 2, ampacityBasis: "heat-balance" });
+    expect(a.ampacityBasis).toMatch(/heat balance/);
+    expect(sizeCable({ systemVoltage: 12, currentA: 40, lengthM: 2 }).ampacityBasis).toMatch(/33 CFR 183\.425 Table 5/);
+  });
 });
