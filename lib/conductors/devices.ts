@@ -81,44 +81,30 @@ const BREAKER_RATINGS = [5, 10, 15, 20, 25, 30, 40, 50, 60, 70, 80, 100, 120, 13
 const BREAKER_SOURCE =
   "SAE J553 thermal circuit breakers (types I auto-reset, II modified reset, III manual reset), representative band (from memory): 100 % carried; 135 % trips within 30 s to 1 h; 200 % within 5 to 60 s; 300 % within 1.5 to 20 s; 500 % within 0.5 to 6 s; 1000 % within 0.1 to 1.5 s";
 
+/** The three SAE J553 types share one band; they differ in how they reset after tripping. */
+const breaker = (id: DeviceFamilyId, name: string, caution?: string): DeviceFamily => ({
+  id,
+  name,
+  kind: "breaker",
+  ratingsA: BREAKER_RATINGS,
+  carriesMultiple: 1,
+  curve: BREAKER_CURVE,
+  beyond: "constant-i2t",
+  floorS: 0.02,
+  source: BREAKER_SOURCE,
+  ...(caution ? { caution } : {}),
+});
+
 export const DEVICE_FAMILIES: Record<DeviceFamilyId, DeviceFamily> = {
   blade: BLADE,
   "bolt-in": BOLT_IN,
-  "breaker-manual": {
-    id: "breaker-manual",
-    name: "Manual-reset breaker (SAE J553 type III)",
-    kind: "breaker",
-    ratingsA: BREAKER_RATINGS,
-    carriesMultiple: 1,
-    curve: BREAKER_CURVE,
-    beyond: "constant-i2t",
-    floorS: 0.02,
-    source: BREAKER_SOURCE,
-  },
-  "breaker-modified": {
-    id: "breaker-modified",
-    name: "Modified-reset breaker (SAE J553 type II)",
-    kind: "breaker",
-    ratingsA: BREAKER_RATINGS,
-    carriesMultiple: 1,
-    curve: BREAKER_CURVE,
-    beyond: "constant-i2t",
-    floorS: 0.02,
-    source: BREAKER_SOURCE,
-    caution: "Resets only when the circuit is switched off: find the fault before switching on again.",
-  },
-  "breaker-auto": {
-    id: "breaker-auto",
-    name: "Auto-reset breaker (SAE J553 type I)",
-    kind: "breaker",
-    ratingsA: BREAKER_RATINGS,
-    carriesMultiple: 1,
-    curve: BREAKER_CURVE,
-    beyond: "constant-i2t",
-    floorS: 0.02,
-    source: BREAKER_SOURCE,
-    caution: "Cycles on and off into a standing fault, heating the cable each time: not for a feed that must stay safe unattended.",
-  },
+  "breaker-manual": breaker("breaker-manual", "Manual-reset breaker (SAE J553 type III)"),
+  "breaker-modified": breaker("breaker-modified", "Modified-reset breaker (SAE J553 type II)", "Resets only when the circuit is switched off: find the fault before switching on again."),
+  "breaker-auto": breaker(
+    "breaker-auto",
+    "Auto-reset breaker (SAE J553 type I)",
+    "Cycles on and off into a standing fault, heating the cable each time: not for a feed that must stay safe unattended.",
+  ),
 };
 
 export type DevicePreference = "fuse" | "breaker" | DeviceFamilyId;
