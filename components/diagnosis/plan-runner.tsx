@@ -34,6 +34,7 @@ const STATUS: Record<StepResult["status"], { label: string; className: string }>
   bad: { label: "Bad", className: "bg-over-soft text-over" },
   "not-read": { label: "To read", className: "bg-graphite-100 text-graphite-700" },
   cannot: { label: "Cannot", className: "bg-caution-soft text-caution" },
+  "cannot-tell": { label: "Cannot tell yet", className: "bg-caution-soft text-caution" },
 };
 
 /** A guided test plan on one circuit: each check in order, recorded as readings, and the verdict they lead to. */

@@ -1,6 +1,6 @@
 import { CIRCUIT_DEFAULTS, stateIdsOf, type CircuitDocument } from "@/lib/circuit";
 import { solveCircuit, type SolveResult } from "@/lib/solver";
-import { chargingWindowV, stateOfChargePercent } from "./limits";
+import { chargingWindowAtV, REFERENCE_TEMP_C, stateOfChargePercent } from "./limits";
 
 /**
  * How far a reading may sit from the model and still count as "as predicted": 10 % of the prediction or 20 mV,
@@ -134,7 +134,7 @@ export function checkReadings(doc: CircuitDocument, readings: Reading[]): Readin
       const charging = Object.values(result.components).some((c) => c.mode === "regulating" || c.mode === "current-limit");
       const batteryI = result.components[battery.id]?.current ?? 0;
       if (charging) {
-        const window = chargingWindowV(doc.systemVoltage);
+        const window = chargingWindowAtV(doc.systemVoltage, doc.ambientC ?? REFERENCE_TEMP_C);
         check.battery = { kind: "charging", window, within: measuredV >= window[0] && measuredV <= window[1] };
       } else if (Math.abs(batteryI) < 1) {
         check.battery = { kind: "rest", socPercent: stateOfChargePercent(measuredV, doc.systemVoltage) };

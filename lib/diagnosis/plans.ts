@@ -2,7 +2,7 @@ import { z } from "zod";
 import { stateIdsOf, type CircuitDocument, type Component } from "@/lib/circuit";
 import { solveCircuit } from "@/lib/solver";
 import { checkReadings, type Reading } from "./compare";
-import { chargingWindowV, effectiveLimits, stateOfChargePercent, type Limits } from "./limits";
+import { againstLimit, chargingWindowAtV, crankingFloorV, effectiveLimits, halfDigitV, REFERENCE_TEMP_C, restVoltageForSoc, stateOfChargePercent, type LimitCheck, type Limits } from "./limits";
 import { locateFault, type Suspect } from "./locate";
 
 /**
@@ -23,8 +23,10 @@ export type PlanState = (typeof PLAN_STATES)[number];
 export const ruleSchema = z.discriminatedUnion("kind", [
   /** A rested battery's state of charge from its open-circuit voltage, at least this many percent. */
   z.strictObject({ kind: z.literal("soc-at-least"), percent: z.number().min(0).max(100) }),
-  /** A voltage inside the charging window of the system (the 12 V figures, scaled). */
+  /** A voltage inside the charging window of the system (the 12 V figures, scaled), widened for the temperature. */
   z.strictObject({ kind: z.literal("charging-window") }),
+  /** The battery under the cranking load at least the load-test floor for its temperature (battery makers' table). */
+  z.strictObject({ kind: z.literal("cranking-floor") }),
   /** A drop no larger than a named limit (volts), the sign ignored. */
   z.strictObject({ kind: z.literal("drop-at-most"), limit: z.enum(["crankPositiveV", "crankGroundV", "chargeSideV", "connectionV"]) }),
   /** A voltage at least this fraction of the system voltage (e.g. the battery while cranking). */
@@ -158,8 +160,8 @@ export const BUILT_IN_PLANS: Plan[] = [
         setup: "Disable the fuel or ignition as the maker's service information says, then crank for no more than 15 seconds.",
         red: p("battery", "pos"),
         black: p("battery", "neg"),
-        rule: { kind: "at-least-fraction", fraction: 0.8 },
-        good: "9.6 V or more on a 12 V battery while cranking (common practice, the usual load-test floor).",
+        rule: { kind: "cranking-floor" },
+        good: "9.6 V or more on a 12 V battery while cranking at 21 C and above, falling to 8.5 V at -18 C (the battery makers' load-test table).",
         fails: { verdict: "battery", why: "The battery's voltage collapses under the cranking load: a weak or failing battery (or one of a bank), or a starter drawing far too much current." },
       },
       {
@@ -224,7 +226,8 @@ export type StepResult = {
   /** The latest reading recorded for this step (same two points and state), in volts as the red lead sees it. */
   readingId?: string;
   measuredV?: number;
-  status: "not-read" | "good" | "bad" | "cannot";
+  /** "cannot-tell": the reading's digits straddle the limit; read it again with one more digit. */
+  status: "not-read" | "good" | "bad" | "cannot" | "cannot-tell";
   /** The figure the reading was judged by, in words. */
   judged?: string;
 };
@@ -241,6 +244,8 @@ export type PlanVerdict = {
 };
 
 const fmt = (v: number) => `${v.toFixed(v < 1 ? 3 : 2)} V`;
+const fmtLimit = (v: number) => `${+v.toFixed(2)} V`;
+const fmtStep = (half: number) => (2 * half >= 0.001 ? `${+(2 * half).toPrecision(1)} V` : `${+(2 * half * 1000).toPrecision(1)} mV`);
 
 /** Judges each step from the circuit's readings and works out the verdict (see the module's comment for the order). */
 export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], limits: Limits = effectiveLimits()): { steps: StepResult[]; verdict: PlanVerdict } {
@@ -249,11 +254,13 @@ export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], l
     for (let i = readings.length - 1; i >= 0; i--) {
       const r = readings[i]!;
       if (r.stateId !== stateId) continue;
-      if (r.positive === pos && r.negative === neg) return { id: r.id, v: volts(r) };
-      if (r.positive === neg && r.negative === pos) return { id: r.id, v: -volts(r) };
+      if (r.positive === pos && r.negative === neg) return { id: r.id, v: volts(r), half: halfDigitV(r.value, r.unit) };
+      if (r.positive === neg && r.negative === pos) return { id: r.id, v: -volts(r), half: halfDigitV(r.value, r.unit) };
     }
     return undefined;
   };
+  const tempC = doc.ambientC ?? REFERENCE_TEMP_C;
+  const atTemp = doc.ambientC === undefined ? "" : ` at ${tempC} C`;
   const rest = (() => {
     const step = plan.steps.find((s) => s.rule.kind === "soc-at-least");
     const pos = step && terminalFor(doc, step.red);
@@ -270,39 +277,52 @@ export function runPlan(plan: Plan, doc: CircuitDocument, readings: Reading[], l
     const found = latest(positive, negative, stateId);
     if (!found) return { step, positive, negative, stateId, status: "not-read" };
     const v = found.v;
+    const half = found.half;
     const r = step.rule;
-    let good: boolean;
+    let status: LimitCheck;
     let judged: string;
     if (r.kind === "soc-at-least") {
-      // The organisation's own floor, when it set one, stands in for the plan's.
+      // The organisation's own floor, when it set one, stands in for the plan's; judged as a voltage at the digits read.
       const floor = limits.restSocPercent ?? r.percent;
+      const floorV = restVoltageForSoc(floor, doc.systemVoltage);
       const soc = stateOfChargePercent(v, doc.systemVoltage);
-      good = soc >= floor;
-      judged = `${fmt(v)} is about ${soc.toFixed(0)} % charged; ${floor} % or more is good`;
+      status = againstLimit(v, half, floorV, "at-least");
+      judged =
+        status === "good"
+          ? `${fmt(v)} is about ${soc.toFixed(0)} % charged: at least the ${floor} % (${fmtLimit(floorV)}) asked for`
+          : status === "bad"
+            ? `${fmt(v)} is about ${soc.toFixed(0)} % charged: under the ${floor} % (${fmtLimit(floorV)}) asked for`
+            : `${fmt(v)}, read to ${fmtStep(half)}, cannot tell whether it reaches ${floor} % (${fmtLimit(floorV)}): read it again to ${fmtStep(half / 10)}`;
     } else if (r.kind === "charging-window") {
-      const [lo, hi] = chargingWindowV(doc.systemVoltage, limits);
-      good = v >= lo && v <= hi;
-      judged = `${fmt(v)} against the window ${lo.toFixed(1)} to ${hi.toFixed(1)} V${v < lo ? ": low, not charging enough" : v > hi ? ": high, overcharging" : ""}`;
+      const [lo, hi] = chargingWindowAtV(doc.systemVoltage, tempC, limits);
+      const low = againstLimit(v, half, lo, "at-least");
+      const high = againstLimit(v, half, hi, "at-most");
+      status = low === "bad" || high === "bad" ? "bad" : low === "cannot-tell" || high === "cannot-tell" ? "cannot-tell" : "good";
+      judged = `${fmt(v)} against the window ${lo.toFixed(2)} to ${hi.toFixed(2)} V${atTemp}${low === "bad" ? ": low, not charging enough" : high === "bad" ? ": high, overcharging" : status === "cannot-tell" ? `: at the edge at ${fmtStep(half)}, read it again to ${fmtStep(half / 10)}` : ""}`;
+    } else if (r.kind === "cranking-floor") {
+      const floor = crankingFloorV(doc.systemVoltage, tempC);
+      status = againstLimit(v, half, floor, "at-least");
+      judged = `${fmt(v)} against the load-test floor of ${floor.toFixed(2)} V${atTemp || ` at ${REFERENCE_TEMP_C} C`}${status === "cannot-tell" ? `: at the edge at ${fmtStep(half)}` : ""}`;
     } else if (r.kind === "drop-at-most") {
       const limit = limits[r.limit];
-      good = Math.abs(v) <= limit;
-      judged = `a drop of ${fmt(Math.abs(v))} against ${limit} V at most`;
+      status = againstLimit(Math.abs(v), half, limit, "at-most");
+      judged = `a drop of ${fmt(Math.abs(v))} against ${limit} V at most${status === "cannot-tell" ? `: at the edge at ${fmtStep(half)}` : ""}`;
     } else if (r.kind === "at-least-fraction") {
       const floor = r.fraction * doc.systemVoltage;
-      good = v >= floor;
+      status = againstLimit(v, half, floor, "at-least");
       judged = `${fmt(v)} against ${floor.toFixed(1)} V at least`;
     } else {
       if (rest === undefined) return { step, positive, negative, stateId, readingId: found.id, measuredV: v, status: "not-read", judged: "read the battery at rest first: this check compares with it" };
-      good = Math.abs(v - rest) <= r.withinV;
+      status = againstLimit(Math.abs(v - rest), half, r.withinV, "at-most");
       judged = `${fmt(v)} against the battery's ${fmt(rest)} at rest (within ${r.withinV} V is good)`;
     }
-    return { step, positive, negative, stateId, readingId: found.id, measuredV: v, status: good ? "good" : "bad", judged };
+    return { step, positive, negative, stateId, readingId: found.id, measuredV: v, status, judged };
   });
 
   const firstBad = steps.find((s) => s.status === "bad");
-  const reasons = steps.filter((s) => s.judged && s.status !== "not-read").map((s) => `${s.step.title}: ${s.judged} (${s.status === "good" ? "good" : "bad"}).`);
+  const reasons = steps.filter((s) => s.judged && s.status !== "not-read").map((s) => `${s.step.title}: ${s.judged} (${s.status === "good" ? "good" : s.status === "bad" ? "bad" : "cannot tell yet"}).`);
   if (!firstBad) {
-    const open = steps.filter((s) => s.status === "not-read" || s.status === "cannot");
+    const open = steps.filter((s) => s.status === "not-read" || s.status === "cannot" || s.status === "cannot-tell");
     if (open.length) return { steps, verdict: { kind: "incomplete", title: `${open.length} of ${steps.length} checks still to read`, reasons } };
     return { steps, verdict: { kind: "none", title: "No fault in this circuit", reasons: [...reasons, plan.allGood] } };
   }

@@ -4,6 +4,7 @@ import * as authRoute from "@/app/api/auth/[...all]/route";
 import * as circuitLesson from "@/app/api/v1/circuits/[circuitId]/lesson/route";
 import * as restoreRoute from "@/app/api/v1/circuits/[circuitId]/restore/route";
 import * as readingsRoute from "@/app/api/v1/circuits/[circuitId]/readings/route";
+import * as readingRoute from "@/app/api/v1/readings/[readingId]/route";
 import * as acceptRoute from "@/app/api/v1/invitations/[invitationId]/accept/route";
 import * as jobCircuits from "@/app/api/v1/jobs/[jobId]/circuits/route";
 import * as jobsRoute from "@/app/api/v1/jobs/route";
@@ -267,6 +268,30 @@ describe("text and numbers at the edge", () => {
       const { rows } = await pool.query("select count(*)::int n from jobs where organization_id = $1", [demoShop.id]);
       expect(seen.length, `every job once ${dir}`).toBe(rows[0].n);
     }
+  });
+});
+
+describe("readings that cannot be true are refused, and nothing is saved", () => {
+  it("answers 422 in words for 520 V at rest, a swapped battery reading, and the same on a correction", async () => {
+    const jobId = (await (await callRoute(h(jobsRoute.POST), { json: { organizationId: demoShop.id, title: "Implausible readings" }, cookie: tech })).json()).job.id;
+    const circuitId = (await (await callRoute(h(jobCircuits.POST), { json: { document: pickupCharging }, params: { jobId }, cookie: tech })).json()).circuit.id;
+    const before = await counts();
+    const high = await callRoute(h(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: 520 }, params: { circuitId }, cookie: tech });
+    expect(high.status).toBe(422);
+    const err = (await high.json()).error;
+    expect(err.code).toBe("implausible-reading");
+    expect(err.message).toMatch(/Nothing was saved: 520 V is more than a 12 V system can show.*520 mV/);
+    const swapped = await callRoute(h(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: "-12,6" }, params: { circuitId }, cookie: tech });
+    expect(swapped.status).toBe(422);
+    expect(await counts()).toEqual(before);
+    // A good one is kept (a decimal comma read as a decimal mark), and a correction to nonsense is refused.
+    const ok = await callRoute(h(readingsRoute.POST), { json: { positive: "B1.pos", negative: "B1.neg", value: "12,45" }, params: { circuitId }, cookie: tech });
+    expect(ok.status).toBe(201);
+    const saved = (await ok.json()).reading;
+    expect(saved.value).toBe(12.45);
+    const fix = await callRoute(h(readingRoute.PATCH), { method: "PATCH", json: { value: 1245 }, params: { readingId: saved.id }, cookie: tech });
+    expect(fix.status).toBe(422);
+    expect((await fix.json()).error.message).toMatch(/Nothing was changed/);
   });
 });
 

@@ -3,6 +3,7 @@ import { deleteReading, getCircuit, getReading, updateReading } from "@/db/queri
 import { ApiError } from "@/lib/api/errors";
 import { workRoute } from "@/lib/api/work";
 import { probeIssues } from "@/lib/circuit";
+import { implausibleReading } from "@/lib/diagnosis/plausibility";
 import { updateReadingInput } from "@/lib/validators/work";
 
 // PATCH /api/v1/readings/:readingId - correct a reading (value, unit, probes, state, current, note, time)
@@ -13,6 +14,10 @@ export const PATCH = workRoute({ resource: "reading", need: "edit", body: update
     // Only the fields being changed must fit the circuit as it is now; an old reading may name a part since removed.
     const changed = probeIssues(circuit.document, merged).filter((i) => i.path in body || (i.path === "negative" && "positive" in body));
     if (changed.length) throw new ApiError(422, "invalid-request", "The change does not fit this circuit; see issues.", changed);
+    if (["value", "unit", "positive", "negative", "stateId"].some((k) => k in body)) {
+      const implausible = implausibleReading(circuit.document, { ...merged, value: body.value ?? before.value, unit: body.unit ?? (before.unit as "V" | "mV") });
+      if (implausible.length) throw new ApiError(422, "implausible-reading", `Nothing was changed: ${implausible[0].message}`, implausible.map(({ path, message }) => ({ path, message })));
+    }
   }
   await updateReading(db, { readingId: target.readingId!, jobId: target.jobId, organizationId: target.organizationId, userId: user.id, changes: body });
   return Response.json({ reading: await getReading(db, target.readingId!) });
