@@ -37,6 +37,8 @@ import * as jobShares from "@/app/api/v1/jobs/[jobId]/share-links/route";
 import * as shareRoute from "@/app/api/v1/share-links/[linkId]/route";
 import * as readingsCsv from "@/app/api/v1/circuits/[circuitId]/readings.csv/route";
 import * as resultsCsv from "@/app/api/v1/circuits/[circuitId]/results.csv/route";
+import * as diagnosisRoute from "@/app/api/v1/circuits/[circuitId]/diagnosis/route";
+import * as planVerdictRoute from "@/app/api/v1/circuits/[circuitId]/plans/[planId]/verdict/route";
 import { DEMO_PASSWORD, demoClass, demoPeople, demoShop } from "@/db/demo";
 import { seedDemo } from "@/db/seed";
 import * as authRoute from "@/app/api/auth/[...all]/route";
@@ -224,6 +226,8 @@ describe("the permission table for work routes (jobs, circuits, revisions, readi
     { name: "GET report PDF", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(reportPdf.GET), { params: { jobId: fx.jobId }, cookie }) },
     { name: "GET readings CSV", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(readingsCsv.GET), { params: { circuitId: fx.circuitId }, cookie }) },
     { name: "GET results CSV", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(resultsCsv.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET diagnosis", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(diagnosisRoute.GET), { params: { circuitId: fx.circuitId }, cookie }) },
+    { name: "GET plan verdict", need: "read", ok: 200, call: (cookie, fx) => callRoute(R(planVerdictRoute.GET), { params: { circuitId: fx.circuitId, planId: "charging" }, cookie }) },
     {
       name: "POST report e-mail",
       need: "edit",

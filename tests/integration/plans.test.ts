@@ -67,3 +67,28 @@ describe("an organisation's own test plans", () => {
     expect((await callRoute(h(planRoute.DELETE), { method: "DELETE", params: { ...params, planId: id }, cookie: lead })).status).toBe(404);
   });
 });
+
+describe("verdicts as data", () => {
+  it("gives a plan's checks and verdict, and the diagnosis, for a circuit the caller may read, and 404 to an outsider", async () => {
+    const verdictRoute = await import("@/app/api/v1/circuits/[circuitId]/plans/[planId]/verdict/route");
+    const diagnosisRoute = await import("@/app/api/v1/circuits/[circuitId]/diagnosis/route");
+    // The demo's unit 27 has only its rest reading: 12.58 V is over BCI's 12.45 V (75 %), so the first check is good
+    // and the rest are still to read.
+    const res = await callRoute(h(verdictRoute.GET), { params: { circuitId: "cir_demo_unit27_charging", planId: "charging" }, cookie: tech });
+    expect(res.status).toBe(200);
+    const body = await res.json();
+    expect(body.plan).toMatchObject({ id: "charging" });
+    expect(body.steps[0]).toMatchObject({ id: "rest", status: "good" });
+    expect(body.steps.slice(1).every((s: { status: string }) => s.status === "not-read")).toBe(true);
+    expect(body.verdict.kind).toBe("incomplete");
+    expect((await callRoute(h(verdictRoute.GET), { params: { circuitId: "cir_demo_unit27_charging", planId: "nope" }, cookie: tech })).status).toBe(404);
+    expect((await callRoute(h(verdictRoute.GET), { params: { circuitId: "cir_demo_unit27_charging", planId: "charging" }, cookie: outsider })).status).toBe(404);
+
+    // Unit 14: its readings put the extra resistance in the alternator's mounting bracket (the demo's story).
+    const d = await (await callRoute(h(diagnosisRoute.GET), { params: { circuitId: "cir_demo_unit14_charging" }, cookie: tech })).json();
+    expect(d.readings.length).toBeGreaterThan(2);
+    expect(d.readings.every((r: { verdict: string }) => ["as-predicted", "higher", "lower", "no-model"].includes(r.verdict))).toBe(true);
+    expect(d.location.suspects.length).toBeGreaterThanOrEqual(0);
+    expect(typeof d.location.residualV).toBe("number");
+  });
+});
