@@ -24,9 +24,25 @@ const app = next({ dev: false, dir, hostname, port });
 const handle = app.getRequestHandler();
 await app.prepare();
 
+/** An address whose path is not valid percent-encoded UTF-8 (a lone surrogate, a stray %FF): Next.js would answer 500. */
+function badPath(url) {
+  try {
+    decodeURIComponent((url ?? "/").split("?")[0]);
+    return false;
+  } catch {
+    return true;
+  }
+}
+
 const server = createServer((req, res) => {
   // Whatever the client sent under this name is replaced by the address of the socket it really came from.
   req.headers[PEER_HEADER] = req.socket.remoteAddress ?? "";
+  if (badPath(req.url)) {
+    const body = JSON.stringify({ error: { code: "bad-text", message: "The address has characters that are not valid text (broken percent-encoding). Check the link." } });
+    res.writeHead(400, { "content-type": "application/json", "content-length": Buffer.byteLength(body), "x-content-type-options": "nosniff", "cache-control": "no-store" });
+    res.end(body);
+    return;
+  }
   handle(req, res);
 });
 server.keepAliveTimeout = 65_000;

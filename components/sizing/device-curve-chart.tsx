@@ -38,7 +38,8 @@ export const DeviceCurveChart = memo(function DeviceCurveChart({ answer }: { ans
   // Ticks at 1, 2 and 5 of each decade in view.
   const ticks: number[] = [];
   for (let d = 10 ** Math.floor(Math.log10(lo)); d <= hi; d *= 10) for (const m of [1, 2, 5]) if (d * m >= lo && d * m <= hi) ticks.push(d * m);
-  const points = [{ amps: peak.currentA, time: Math.max(T_MIN, peak.forS || 0.01), name: "peak" }, ...(inrush ? [{ amps: inrush.currentA, time: inrush.forS, name: "inrush" }] : [])];
+  // A continuous load has no on-time to draw: only a peak held for a while, or an inrush, is a point on the chart.
+  const points = [...(peak.forS > 0 ? [{ amps: peak.currentA, time: peak.forS, name: "peak" }] : []), ...(inrush ? [{ amps: inrush.currentA, time: inrush.forS, name: "inrush" }] : [])];
   const withstandKA2s = fault.withstandI2t / 1e6;
   const letKA2s = fault.letThroughI2t / 1e6;
   return (
@@ -48,7 +49,7 @@ export const DeviceCurveChart = memo(function DeviceCurveChart({ answer }: { ans
         The band between the two lines is where a {family.name.toLowerCase()} may open. The load&apos;s peak must sit to the left of the fast edge; across the run&apos;s fault
         currents ({fmtAmps(fault.minA)} to {fmtAmps(fault.maxA)}) the slow edge must stay under the cable&apos;s withstand line.
       </p>
-      <div className="mt-3 h-72 w-full" aria-hidden="true">
+      <div className="mt-3 h-80 w-full" aria-hidden="true">
         <ResponsiveContainer width="100%" height="100%">
           <ComposedChart data={data} margin={{ top: 8, right: 16, bottom: 8, left: 8 }}>
             <CartesianGrid stroke="var(--color-graphite-100)" />
@@ -66,18 +67,19 @@ export const DeviceCurveChart = memo(function DeviceCurveChart({ answer }: { ans
             />
             <YAxis type="number" scale="log" domain={[T_MIN, T_MAX]} allowDataOverflow ticks={[0.001, 0.01, 0.1, 1, 10, 100, 1000, 10000, 100000]} tickFormatter={(v: number) => fmtTime(v)} fontSize={12} width={64} />
             <Tooltip formatter={(value) => fmtTime(Number(value))} labelFormatter={(label) => fmtAmps(Number(label))} contentStyle={{ fontSize: 12 }} />
-            <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 12 }} />
+            <Legend verticalAlign="bottom" wrapperStyle={{ fontSize: 12, paddingTop: 8 }} />
             <Line dataKey="fastest" name="may open as soon as" stroke="var(--color-copper-600)" strokeWidth={2} dot={false} isAnimationActive={false} connectNulls={false} />
             <Line dataKey="slowest" name="clears no later than" stroke="var(--color-graphite-800)" strokeDasharray="6 3" strokeWidth={2} dot={false} isAnimationActive={false} connectNulls={false} />
             <Line dataKey="withstand" name="cable withstand" stroke="var(--color-over)" strokeDasharray="2 3" strokeWidth={2} dot={false} isAnimationActive={false} connectNulls={false} />
-            <Scatter data={points} dataKey="time" name="load's peak" fill="var(--color-within)" shape="diamond" isAnimationActive={false} />
+            {points.length ? <Scatter data={points} dataKey="time" name="load's peak" fill="var(--color-within)" shape="diamond" isAnimationActive={false} /> : null}
           </ComposedChart>
         </ResponsiveContainer>
       </div>
       <ul className="mt-2 space-y-1 text-sm text-graphite-700" data-testid="device-checks">
         <li>
-          Carries {fmtAmps(peak.currentA)} {peak.forS > 0 ? `for ${fmtTime(peak.forS)}` : "continuously"}: it may open no sooner than{" "}
-          {Number.isFinite(peak.opensNoSoonerThanS) ? fmtTime(peak.opensNoSoonerThanS) : "never (below its opening current)"}.
+          {peak.forS > 0
+            ? `Carries ${fmtAmps(peak.currentA)} for ${fmtTime(peak.forS)}: it may open no sooner than ${Number.isFinite(peak.opensNoSoonerThanS) ? fmtTime(peak.opensNoSoonerThanS) : "never at that current"}.`
+            : `Carries ${fmtAmps(peak.currentA)} continuously: ${Number.isFinite(peak.opensNoSoonerThanS) ? `it may open after ${fmtTime(peak.opensNoSoonerThanS)} at that current` : "below any current it opens at"}.`}
         </li>
         {inrush ? (
           <li>

@@ -72,6 +72,26 @@ describe("the browser's side of hardening", () => {
     await framer.close();
   });
 
+  it("answers 400, never 500, to an address with broken percent-encoding, and ignores a client's own peer header", async () => {
+    // %ED%A0%80 is a UTF-16 surrogate written as UTF-8 (not valid text); %FF is no UTF-8 at all.
+    for (const path of ["/api/v1/jobs/%ED%A0%80", "/jobs/%FF", "/api/v1/circuits/%C0%AF/readings"]) {
+      const res = await fetch(`${baseUrl}${path}`);
+      expect(res.status, path).toBe(400);
+    }
+    // Forged addresses in both headers: the socket's own address (loopback) still meets the per-account limit's
+    // neighbours' limit of five a minute, because neither header is believed.
+    const statuses: number[] = [];
+    for (let i = 0; i < 6; i++) {
+      const res = await fetch(`${baseUrl}/api/auth/sign-in/email`, {
+        method: "POST",
+        headers: { origin: baseUrl, "content-type": "application/json", "x-forwarded-for": `203.0.113.${i}`, "x-ampwright-peer": `198.51.100.${i}` },
+        body: JSON.stringify({ email: "ruth@fernmoor.example", password: `not the password ${i}` }),
+      });
+      statuses.push(res.status);
+    }
+    expect(statuses).toEqual([401, 401, 401, 401, 401, 429]);
+  });
+
   it("a page on another origin of the same site cannot create a job with the user's cookies", async () => {
     const before = await jobCount();
     const body = JSON.stringify({ title: "Forged from another origin", organizationId: "org_demo_shop" });
