@@ -297,8 +297,8 @@ function Verdict({ check }: { check: ReadingCheck | undefined }) {
         </p>
       ) : check.battery?.kind === "charging" ? (
         <p className={`mt-0.5 text-xs ${check.battery.within ? "text-graphite-700" : "font-semibold text-over"}`} data-testid="charging-window">
-          Charging voltage {check.battery.within ? "inside" : "outside"} the usual {check.battery.window[0].toFixed(1)} to {check.battery.window[1].toFixed(1)} V
-          (common practice; the maker&rsquo;s figure comes first).
+          Charging voltage {check.battery.within ? "inside" : "outside"} the window of {check.battery.window[0].toFixed(2)} to {check.battery.window[1].toFixed(2)} V at the
+          circuit&rsquo;s {check.battery.tempC} °C (common practice, widened for temperature; the maker&rsquo;s figure comes first).
         </p>
       ) : null}
       {p?.heatWarning ? (

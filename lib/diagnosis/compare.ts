@@ -45,7 +45,7 @@ export type ReadingCheck = {
   /** Why no resistance could be worked out along the probes' path. */
   pathNote?: string;
   /** Across a battery's own posts: its state of charge at rest, or the charging voltage against the window. */
-  battery?: { kind: "rest"; socPercent: number } | { kind: "charging"; window: [number, number]; within: boolean };
+  battery?: { kind: "rest"; socPercent: number } | { kind: "charging"; window: [number, number]; within: boolean; tempC: number };
 };
 
 type Edge = { id: string; a: string; b: string; ohm: number; current: number };
@@ -134,8 +134,9 @@ export function checkReadings(doc: CircuitDocument, readings: Reading[]): Readin
       const charging = Object.values(result.components).some((c) => c.mode === "regulating" || c.mode === "current-limit");
       const batteryI = result.components[battery.id]?.current ?? 0;
       if (charging) {
-        const window = chargingWindowAtV(doc.systemVoltage, doc.ambientC ?? REFERENCE_TEMP_C);
-        check.battery = { kind: "charging", window, within: measuredV >= window[0] && measuredV <= window[1] };
+        const tempC = doc.ambientC ?? REFERENCE_TEMP_C;
+        const window = chargingWindowAtV(doc.systemVoltage, tempC);
+        check.battery = { kind: "charging", window, within: measuredV >= window[0] && measuredV <= window[1], tempC };
       } else if (Math.abs(batteryI) < 1) {
         check.battery = { kind: "rest", socPercent: stateOfChargePercent(measuredV, doc.systemVoltage) };
       }

@@ -138,7 +138,7 @@ function readingDetail(check: ReadingCheck | undefined): string {
   }
   if (check.battery?.kind === "rest") parts.push(`at rest about ${Math.round(check.battery.socPercent)} % charged (BCI open-circuit table)`);
   if (check.battery?.kind === "charging") {
-    parts.push(`charging voltage ${check.battery.within ? "inside" : "outside"} the usual ${check.battery.window[0].toFixed(1)}–${check.battery.window[1].toFixed(1)} V`);
+    parts.push(`charging voltage ${check.battery.within ? "inside" : "outside"} the window of ${check.battery.window[0].toFixed(2)}–${check.battery.window[1].toFixed(2)} V for the circuit's temperature`);
   }
   return parts.join("; ");
 }

@@ -75,6 +75,6 @@ describe("battery readings", () => {
     expect(rest.battery).toEqual({ kind: "rest", socPercent: expect.closeTo(50 + (25 * 0.2) / 0.21, 6) });
     // Common practice: 13.5 to 14.8 V while charging a 12 V system at 25 C; the pickup's 30 C lowers the low end by
     // 3 mV per cell per degree (common practice, from memory): 13.5 - 0.003 x 6 x 5 = 13.41 V. 12.58 V is under it.
-    expect(charging.battery).toEqual({ kind: "charging", window: [expect.closeTo(13.41, 9), 14.8], within: false });
+    expect(charging.battery).toEqual({ kind: "charging", window: [expect.closeTo(13.41, 9), 14.8], within: false, tempC: 30 });
   });
 });
