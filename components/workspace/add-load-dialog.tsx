@@ -103,6 +103,9 @@ export function AddLoadDialog(props: { doc: CircuitDocument; currentState: strin
   });
   const values = useWatch({ control: form.control }) as Values;
   const parsed = read(values);
+  // The efficiency field shows for a power, even while it (or another field) still needs fixing.
+  const load = parseLoad(values.demand ?? "");
+  const demandIsPower = load.ok && load.powerW !== undefined;
   const plan = parsed.ok ? planAddedLoad(props.doc, parsed.input) : null;
   const supply = plan?.ok ? supplyRow(plan.doc, plan.stateId, solveCircuit(plan.doc, { state: plan.stateId })) : null;
   const first = useRef<HTMLInputElement | null>(null);
@@ -156,7 +159,7 @@ export function AddLoadDialog(props: { doc: CircuitDocument; currentState: strin
               <span className="mt-0.5 block text-xs text-graphite-500">a current (150 A) or a power (1500 W)</span>
               {err("demand")}
             </label>
-            {parseLoad(values.demand ?? "").ok && (parseLoad(values.demand ?? "") as { powerW?: number }).powerW !== undefined ? (
+            {demandIsPower ? (
               <label className="block text-sm">
                 <span className="font-medium">Efficiency</span>
                 <input {...form.register("efficiency")} className={`${field} font-mono`} data-testid="load-efficiency" />
